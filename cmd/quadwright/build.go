@@ -1,0 +1,171 @@
+package main
+
+import (
+	"context"
+	"fmt"
+	"math/big"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"quadwright/design"
+	"quadwright/moments"
+	"quadwright/precision"
+)
+
+// buildOptions holds the flags of `quadwright build` as typed.
+type buildOptions struct {
+	family, alpha, beta, interval string
+	weight, momentsFile, measure  string
+	points, kind, digits, format  string
+	fixed, nodesFile, breaks      string
+	output                        string
+}
+
+// autoDigits is what --digits auto gives for a measure known exactly (a
+// family with exact parameters): quadruple precision's 34 digits.
+const autoDigits = 34
+
+func newBuildCommand() *cobra.Command {
+	o := &buildOptions{}
+	cmd := &cobra.Command{
+		Use:   "build",
+		Short: "Build a verified one-dimensional quadrature rule",
+		Long: `Build the rule of a measure, verify it and print it.
+
+The measure is a classical family (--family, with --alpha/--beta where it has
+parameters, mapped affinely onto --interval for the finite families). The rule
+is computed twice at two working precisions; only digits on which both agree
+are printed, and the printed values are tested for exactness before they are
+written. A rule that cannot be verified is an error, not a result.`,
+		Example: `  quadwright build --family legendre --points 5 --digits 30
+  quadwright build --family jacobi --alpha -0.7 --beta 2.3 --points 10 --format json
+  quadwright build --family laguerre --alpha 1.5 --points 12 --format csv -o laguerre12.csv
+  quadwright build --family legendre --interval 0,2 --points 4`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			return runBuild(cmd.Context(), o, cmd)
+		},
+	}
+	f := cmd.Flags()
+	f.StringVar(&o.family, "family", "", "classical family: "+strings.Join(moments.FamilyNames, ", "))
+	f.StringVar(&o.alpha, "alpha", "", "family parameter alpha, exact decimal or p/q (jacobi: (1-x)^alpha, > -1, default 0; laguerre: x^alpha, > -1, default 0; gegenbauer: (1-x^2)^(alpha-1/2), > -1/2, required)")
+	f.StringVar(&o.beta, "beta", "", "Jacobi parameter beta, exact decimal or p/q: (1+x)^beta, > -1 (default 0)")
+	f.StringVar(&o.interval, "interval", "", "support A,B of the weight (inf, -inf allowed); a finite family is mapped affinely from [-1,1] onto it (default: the family's own interval)")
+	f.StringVar(&o.weight, "weight", "", "weight function of x (not available in this version)")
+	f.StringVar(&o.momentsFile, "moments", "", "file of raw moments (not available in this version)")
+	f.StringVar(&o.measure, "measure", "", "file of a discrete measure (not available in this version)")
+	f.StringVar(&o.points, "points", "", fmt.Sprintf("number of nodes N, 1 to %d (required)", design.MaxPoints))
+	f.StringVar(&o.kind, "kind", "gauss", "kind of rule: gauss")
+	f.StringVar(&o.digits, "digits", "", fmt.Sprintf("significant decimal digits, all correct, 1 to %d, or auto (%d for an exactly known measure); default: float64 mode, the nearest double to every value", precision.MaxDigits, autoDigits))
+	f.StringVar(&o.format, "format", "text", "output format: text, json or csv")
+	f.StringVar(&o.fixed, "fixed", "", "prescribed nodes (not available in this version)")
+	f.StringVar(&o.nodesFile, "nodes", "", "file of prescribed nodes (not available in this version)")
+	f.StringVar(&o.breaks, "breaks", "", "interior points where the weight is not smooth (not available in this version)")
+	f.StringVarP(&o.output, "output", "o", "", "write the rule to this file (atomically) instead of standard output")
+	return cmd
+}
+
+func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
+	if ctx == nil {
+		ctx = context.Background()
+	}
+	for _, un := range []struct{ name, val string }{
+		{"--weight", o.weight}, {"--moments", o.momentsFile}, {"--measure", o.measure},
+		{"--fixed", o.fixed}, {"--nodes", o.nodesFile}, {"--breaks", o.breaks},
+	} {
+		if un.val != "" {
+			return fmt.Errorf("%s: this version builds rules for --family measures only", un.name)
+		}
+	}
+	if o.family == "" {
+		return fmt.Errorf("no measure given: name one with --family (for example --family legendre)")
+	}
+	if o.kind != "gauss" {
+		return fmt.Errorf("--kind %q: this version builds gauss rules only", o.kind)
+	}
+	format, err := parseFormat(o.format)
+	if err != nil {
+		return err
+	}
+	if o.points == "" {
+		return fmt.Errorf("--points is required: give the number of nodes, for example --points 10")
+	}
+	n, err := strconv.Atoi(strings.TrimSpace(o.points))
+	if err != nil {
+		return fmt.Errorf("--points %q: not a whole number", o.points)
+	}
+	if n < 1 || n > design.MaxPoints {
+		return fmt.Errorf("--points %d: the number of points must be between 1 and %d", n, design.MaxPoints)
+	}
+	digits, err := parseDigits(o.digits)
+	if err != nil {
+		return err
+	}
+	alpha, err := optionalRat("--alpha", o.alpha)
+	if err != nil {
+		return err
+	}
+	beta, err := optionalRat("--beta", o.beta)
+	if err != nil {
+		return err
+	}
+	var iv *moments.Interval
+	if o.interval != "" {
+		v, err := moments.ParseInterval(o.interval)
+		if err != nil {
+			return fmt.Errorf("--interval: %v", err)
+		}
+		iv = &v
+	}
+	fam, err := moments.NewFamily(o.family, alpha, beta, iv)
+	if err != nil {
+		return err
+	}
+	rule, err := design.Gauss(ctx, design.FamilySource{Family: fam}, design.Request{Points: n, Digits: digits})
+	if err != nil {
+		return err
+	}
+	return writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
+		return writeRule(w, rule, &fam, format)
+	})
+}
+
+func parseFormat(s string) (string, error) {
+	switch strings.ToLower(strings.TrimSpace(s)) {
+	case "text", "json", "csv":
+		return strings.ToLower(strings.TrimSpace(s)), nil
+	}
+	return "", fmt.Errorf("--format %q: choose text, json or csv", s)
+}
+
+// parseDigits reads --digits: "" is float64 mode (0), auto is autoDigits.
+func parseDigits(s string) (int, error) {
+	s = strings.TrimSpace(s)
+	switch strings.ToLower(s) {
+	case "":
+		return 0, nil
+	case "auto":
+		return autoDigits, nil
+	}
+	d, err := strconv.Atoi(s)
+	if err != nil {
+		return 0, fmt.Errorf("--digits %q: give a whole number of significant digits from 1 to %d, or auto", s, precision.MaxDigits)
+	}
+	if d < 1 || d > precision.MaxDigits {
+		return 0, fmt.Errorf("--digits %d: the digits must be between 1 and %d", d, precision.MaxDigits)
+	}
+	return d, nil
+}
+
+func optionalRat(flag, s string) (*big.Rat, error) {
+	if strings.TrimSpace(s) == "" {
+		return nil, nil
+	}
+	r, err := precision.ParseExact(s)
+	if err != nil {
+		return nil, fmt.Errorf("%s: %v", flag, err)
+	}
+	return r, nil
+}

@@ -1,0 +1,58 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+)
+
+// writeOutput renders with render and sends the result to stdout, or, when
+// path is set, to path through a temporary file in the same folder that is
+// renamed into place only once everything was written: a failure leaves no
+// partial file behind.
+func writeOutput(path string, stdout io.Writer, render func(w *strings.Builder) error) error {
+	var b strings.Builder
+	if err := render(&b); err != nil {
+		return err
+	}
+	if path == "" {
+		_, err := io.WriteString(stdout, b.String())
+		return err
+	}
+	return writeFileAtomic(path, []byte(b.String()))
+}
+
+// writeFileAtomic writes data to path by way of a temporary file and a rename.
+func writeFileAtomic(path string, data []byte) error {
+	dir := filepath.Dir(path)
+	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp-*")
+	if err != nil {
+		return fmt.Errorf("-o %s: cannot write there (%v)", path, unwrapPathError(err))
+	}
+	name := tmp.Name()
+	_, werr := tmp.Write(data)
+	cerr := tmp.Close()
+	if werr == nil {
+		werr = cerr
+	}
+	if werr == nil {
+		werr = os.Rename(name, path)
+	}
+	if werr != nil {
+		os.Remove(name)
+		return fmt.Errorf("-o %s: writing failed (%v)", path, unwrapPathError(werr))
+	}
+	return nil
+}
+
+func unwrapPathError(err error) error {
+	if pe, ok := err.(*os.PathError); ok {
+		return pe.Err
+	}
+	if le, ok := err.(*os.LinkError); ok {
+		return le.Err
+	}
+	return err
+}

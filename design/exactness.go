@@ -1,0 +1,159 @@
+package design
+
+import (
+	"context"
+	"fmt"
+	"math/big"
+	"runtime"
+	"sync"
+
+	"quadwright/precision"
+)
+
+// Exactness is the outcome of testing a rule, polynomial by polynomial,
+// against the orthogonal polynomials of the measure it claims.
+type Exactness struct {
+	// Degree is the highest d such that every polynomial of degree <= d
+	// passes; -1 when constants fail.
+	Degree int
+	// Tested is the highest degree tested.
+	Tested int
+	// Ratio[j] is |Q(p_j) - I(p_j)| / sum_i |w_i| (|p_j(x_i)| + |x_i p_j'(x_i)|)
+	// for the orthogonal polynomial p_j of degree j (the ratio does not
+	// depend on how p_j is normalised). It is the residual at degree j
+	// measured in units of what the rule's own rounding can explain.
+	Ratio []*big.Float
+}
+
+// CheckExactness tests the rule (nodes, weights) against the measure of rec
+// for the degrees 0..maxDeg: the degree-j orthogonal polynomial p_j counts
+// as integrated when
+//
+//	|sum_i w_i p_j(x_i) - I(p_j)| <= tol * sum_i |w_i| (|p_j(x_i)| + |x_i p_j'(x_i)|),
+//
+// with I(p_0) = beta_0 and I(p_j) = 0 for j >= 1. Testing in the orthogonal
+// basis keeps the test well conditioned, where a test on monomials would
+// itself lose digits; the right-hand side is the change that perturbing
+// every node and weight by a relative tol/2 can cause, so tol = 10 u is "ten
+// times what data known to a relative u allows". rec must hold at least
+// maxDeg pairs. The sums are formed at prec bits, which should exceed the
+// bits of tol by a margin (64 bits is ample).
+func CheckExactness(ctx context.Context, rec *Recurrence, nodes, weights []*big.Float, tol *big.Float, maxDeg int, prec uint) (Exactness, error) {
+	if len(nodes) != len(weights) {
+		panic("design: CheckExactness with mismatched nodes and weights")
+	}
+	if rec.Len() < maxDeg {
+		panic(fmt.Sprintf("design: CheckExactness to degree %d needs %d recurrence pairs, have %d", maxDeg, maxDeg, rec.Len()))
+	}
+	m := maxDeg + 1
+	a := precision.NewRealSlice(maxDeg+1, prec)
+	b := precision.NewRealSlice(maxDeg+1, prec)
+	for k := 0; k < maxDeg; k++ {
+		a[k].SetBig(rec.Alpha[k])
+		b[k].SetBig(rec.Beta[k])
+	}
+	n := len(nodes)
+	workers := runtime.GOMAXPROCS(0)
+	if n < 4*workers {
+		workers = 1
+	}
+	sums := make([][]*precision.Real, workers)
+	bounds := make([][]*precision.Real, workers)
+	var wg sync.WaitGroup
+	errs := make([]error, workers)
+	for wk := 0; wk < workers; wk++ {
+		sums[wk] = precision.NewRealSlice(m, prec)
+		bounds[wk] = precision.NewRealSlice(m, prec)
+		lo, hi := wk*n/workers, (wk+1)*n/workers
+		wg.Add(1)
+		go func(wk, lo, hi int) {
+			defer wg.Done()
+			errs[wk] = exactnessChunk(ctx, a, b, nodes[lo:hi], weights[lo:hi], sums[wk], bounds[wk], prec)
+		}(wk, lo, hi)
+	}
+	wg.Wait()
+	for _, err := range errs {
+		if err != nil {
+			return Exactness{}, err
+		}
+	}
+	// Fixed chunking and a fixed order of the final sums keep the result
+	// independent of scheduling.
+	S, B := sums[0], bounds[0]
+	for wk := 1; wk < workers; wk++ {
+		for j := 0; j < m; j++ {
+			S[j].Add(S[j], sums[wk][j])
+			B[j].Add(B[j], bounds[wk][j])
+		}
+	}
+	mass := precision.NewReal(prec).SetBig(rec.Beta[0])
+	S[0].Sub(S[0], mass)
+	t := precision.NewReal(prec).SetBig(tol)
+	lim := precision.NewReal(prec)
+	res := Exactness{Degree: -1, Tested: maxDeg, Ratio: make([]*big.Float, m)}
+	failed := false
+	for j := 0; j < m; j++ {
+		S[j].Abs(S[j])
+		lim.Mul(t, B[j])
+		r := new(big.Float).SetPrec(64)
+		if !B[j].IsZero() {
+			q := precision.NewReal(prec).Quo(S[j], B[j])
+			r.Set(q.Big(nil))
+		} else if !S[j].IsZero() {
+			r.SetInf(false)
+		}
+		res.Ratio[j] = r
+		if !failed && S[j].Cmp(lim) <= 0 {
+			res.Degree = j
+		} else {
+			failed = true
+		}
+	}
+	return res, nil
+}
+
+// exactnessChunk adds, for its nodes, w_i p_j(x_i) to S[j] and
+// |w_i| (|p_j(x_i)| + |x_i p_j'(x_i)|) to B[j], j = 0..len(S)-1, with p_j
+// the monic orthogonal polynomials run by the forward recurrence.
+func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights []*big.Float, S, B []*precision.Real, prec uint) error {
+	r := precision.NewRealSlice(12, prec)
+	x, w, aw, ax := r[0], r[1], r[2], r[3]
+	p0, p1, d0, d1, t, u, v, z := r[4], r[5], r[6], r[7], r[8], r[9], r[10], r[11]
+	m := len(S)
+	for i := range nodes {
+		if i%16 == 0 {
+			if err := ctx.Err(); err != nil {
+				return err
+			}
+		}
+		x.SetBig(nodes[i])
+		w.SetBig(weights[i])
+		aw.Abs(w)
+		ax.Abs(x)
+		p0.SetInt64(0)
+		p1.SetInt64(1)
+		d0.SetInt64(0)
+		d1.SetInt64(0)
+		for j := 0; j < m; j++ {
+			// p1 = p_j(x), d1 = p_j'(x): accumulate, then step to j+1.
+			S[j].MulAdd(w, p1, S[j])
+			u.Mul(ax, d1)
+			u.Abs(u)
+			v.Abs(p1)
+			u.Add(u, v)
+			B[j].MulAdd(aw, u, B[j])
+			if j+1 == m {
+				break
+			}
+			t.Sub(x, a[j])
+			u.Mul(b[j], p0)
+			v.MulSub(t, p1, u)
+			u.Mul(b[j], d0)
+			z.MulSub(t, d1, u)
+			z.Add(z, p1)
+			p0, p1, v = p1, v, p0
+			d0, d1, z = d1, z, d0
+		}
+	}
+	return nil
+}

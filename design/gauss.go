@@ -1,0 +1,146 @@
+package design
+
+import (
+	"context"
+	"fmt"
+	"math/big"
+
+	"quadwright/precision"
+)
+
+// MaxPoints is the largest rule the extended-precision engine builds. Its
+// cost grows as N^2 (about a second at N = 1000 and 34 digits); beyond this
+// size a fast float64 method is the right tool.
+const MaxPoints = 20000
+
+// Request says which rule to build.
+type Request struct {
+	Points int // number of nodes, >= 1
+	Digits int // significant decimal digits, 1..precision.MaxDigits; 0 selects float64 mode
+}
+
+// maxAttempts bounds how often the working precision is raised when two
+// computations disagree in a printed digit.
+const maxAttempts = 6
+
+// Gauss builds the Points-node Gauss rule of m, verified.
+//
+// The rule is computed twice, at a working precision p chosen from the
+// digits asked and at a higher precision p2 starting from the first result;
+// the printed digits (or, in float64 mode, the nearest doubles) must agree
+// between the two, else p is raised and both are recomputed. The printed
+// values are then read back exactly and tested for exactness through degree
+// 2N-1 against m's own orthogonal polynomials (CheckExactness with tol =
+// 10 u, u one unit in the D-th printed digit); a rule that fails any of this
+// is an error, never a result.
+func Gauss(ctx context.Context, m Measure, req Request) (*Rule, error) {
+	n := req.Points
+	if n < 1 || n > MaxPoints {
+		return nil, fmt.Errorf("--points %d: the number of points must be between 1 and %d", n, MaxPoints)
+	}
+	if req.Digits < 0 || req.Digits > precision.MaxDigits {
+		return nil, fmt.Errorf("--digits %d: the digits must be between 1 and %d", req.Digits, precision.MaxDigits)
+	}
+	if max := m.MaxLen(); max >= 0 && max < 2*n {
+		return nil, fmt.Errorf("the measure provides %d recurrence coefficients; an %d-point Gauss rule and its check need %d", max, n, 2*n)
+	}
+	target := req.Digits
+	if target == 0 {
+		target = 17
+	}
+	p := precision.WorkingPrec(target, n)
+	src := &cachedSource{src: m}
+	if err := src.reserve(2*n, confirmPrec(p)); err != nil {
+		return nil, err
+	}
+	var start []*big.Float
+	var s1, s2 *stage
+	var texts [2][]string
+	fallback := false
+	for attempt := 0; ; attempt++ {
+		if attempt == maxAttempts {
+			return nil, fmt.Errorf("the %d-point rule could not be confirmed to %s: two computations still disagreed at %d bits", n, digitsLabel(req.Digits), p)
+		}
+		rec, err := src.Recurrence(n, p)
+		if err != nil {
+			return nil, err
+		}
+		if s1, err = gaussStage(ctx, rec, n, p, start); err != nil {
+			return nil, err
+		}
+		p2 := confirmPrec(p)
+		rec2, err := src.Recurrence(n, p2)
+		if err != nil {
+			return nil, err
+		}
+		if s2, err = gaussStage(ctx, rec2, n, p2, s1.nodes); err != nil {
+			return nil, err
+		}
+		var ok bool
+		if texts, ok = agree(s1, s2, req.Digits); ok {
+			break
+		}
+		start = s2.nodes
+		p = precision.RaisePrec(p2)
+	}
+	r := &Rule{
+		Kind: "gauss", Measure: m.Label(), Weight: m.Weight(), Domain: m.Domain(),
+		Nodes: texts[0], Weights: texts[1], NodeValues: s2.nodes, WeightValues: s2.weights,
+		Digits: req.Digits, WorkingPrec: s2.prec, CheckPrec: s1.prec,
+		Method: "Golub-Welsch start (float64), Newton refinement on the three-term recurrence", Fallback: fallback,
+	}
+	ex, err := VerifyPrinted(ctx, src, r.Nodes, r.Weights, 2*n-1)
+	if err != nil {
+		return nil, err
+	}
+	r.Exactness, r.Degree = ex, ex.Degree
+	if ex.Degree < 2*n-1 {
+		return nil, fmt.Errorf("the %d-point rule printed to %s integrates only through degree %d, not %d; it is not printed", n, digitsLabel(req.Digits), ex.Degree, 2*n-1)
+	}
+	r.Degree = 2*n - 1
+	return r, nil
+}
+
+// confirmPrec is the precision of the second, confirming stage: 64 bits
+// more than the first, so that their agreement to the printed digits
+// leaves the printed digits resting on the more accurate one.
+func confirmPrec(p uint) uint { return p + 64 }
+
+func digitsLabel(d int) string {
+	if d == 0 {
+		return "float64"
+	}
+	return fmt.Sprintf("%d digits", d)
+}
+
+// VerifyPrinted reads printed nodes and weights as exact decimals and tests
+// them with CheckExactness through degree maxDeg, with u one unit in the
+// largest number of significant digits among them (so exact short values
+// such as 1 or 0.5 do not lower it) and tol = 10 u.
+func VerifyPrinted(ctx context.Context, m RecurrenceSource, nodes, weights []string, maxDeg int) (Exactness, error) {
+	D := 1
+	for _, s := range append(append([]string(nil), nodes...), weights...) {
+		num, err := precision.ParseNumber(s)
+		if err != nil {
+			return Exactness{}, err
+		}
+		if num.Digits > D {
+			D = num.Digits
+		}
+	}
+	prec := precision.DigitsToBits(D) + 64
+	rec, err := m.Recurrence(maxDeg, prec)
+	if err != nil {
+		return Exactness{}, err
+	}
+	xs := make([]*big.Float, len(nodes))
+	ws := make([]*big.Float, len(nodes))
+	for i := range nodes {
+		x, _ := precision.ParseExact(nodes[i])
+		w, _ := precision.ParseExact(weights[i])
+		xs[i] = new(big.Float).SetPrec(prec).SetRat(x)
+		ws[i] = new(big.Float).SetPrec(prec).SetRat(w)
+	}
+	tol := new(big.Float).SetPrec(prec).SetRat(new(big.Rat).SetFrac(big.NewInt(10), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(D-1)), nil)))
+	return CheckExactness(ctx, rec, xs, ws, tol, maxDeg, prec)
+}

@@ -1,0 +1,6 @@
+//go:build heavy
+
+package design
+
+// heavy widens the sweeps: go test -tags heavy ./design/
+const heavy = true

@@ -1,0 +1,5 @@
+//go:build !heavy
+
+package design
+
+const heavy = false
