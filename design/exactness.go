@@ -23,6 +23,24 @@ type Exactness struct {
 	// depend on how p_j is normalised). It is the residual at degree j
 	// measured in units of what the rule's own rounding can explain.
 	Ratio []*big.Float
+	// Tol is the tolerance the ratios were held against.
+	Tol *big.Float
+}
+
+// WorstShare returns the largest Ratio[j] / Tol over the degrees that
+// passed: 1 would be a residual right at the tolerance.
+func (e Exactness) WorstShare() float64 {
+	worst := 0.0
+	if e.Tol == nil || e.Tol.Sign() == 0 {
+		return worst
+	}
+	for j := 0; j <= e.Degree && j < len(e.Ratio); j++ {
+		q := new(big.Float).SetPrec(64).Quo(e.Ratio[j], e.Tol)
+		if f, _ := q.Float64(); f > worst {
+			worst = f
+		}
+	}
+	return worst
 }
 
 // CheckExactness tests the rule (nodes, weights) against the measure of rec
@@ -90,7 +108,7 @@ func CheckExactness(ctx context.Context, rec *Recurrence, nodes, weights []*big.
 	S[0].Sub(S[0], mass)
 	t := precision.NewReal(prec).SetBig(tol)
 	lim := precision.NewReal(prec)
-	res := Exactness{Degree: -1, Tested: maxDeg, Ratio: make([]*big.Float, m)}
+	res := Exactness{Degree: -1, Tested: maxDeg, Ratio: make([]*big.Float, m), Tol: new(big.Float).SetPrec(64).Set(tol)}
 	failed := false
 	for j := 0; j < m; j++ {
 		S[j].Abs(S[j])

@@ -1,0 +1,67 @@
+package main
+
+import (
+	"fmt"
+	"strings"
+
+	"quadwright/design"
+	"quadwright/moments"
+	"quadwright/rulefile"
+)
+
+// maxRatio is the largest exactness residual, as a share of the
+// tolerance, over the degrees that passed.
+func maxRatio(r *design.Rule) string {
+	return fmt.Sprintf("%.2g", r.Exactness.WorstShare())
+}
+
+// writeRule renders r in the given format.
+func writeRule(w *strings.Builder, r *design.Rule, fam *moments.Family, format string) error {
+	switch format {
+	case "json":
+		b, err := rulefile.FromRule(r, fam, "quadwright "+version).MarshalIndent()
+		if err != nil {
+			return err
+		}
+		w.Write(b)
+	case "csv":
+		w.WriteString("node,weight\n")
+		for i := range r.Nodes {
+			fmt.Fprintf(w, "%s,%s\n", r.Nodes[i], r.Weights[i])
+		}
+	default:
+		writeText(w, r)
+	}
+	return nil
+}
+
+func writeText(w *strings.Builder, r *design.Rule) {
+	digits := "float64 (each value the nearest double, shortest form)"
+	if r.Digits > 0 {
+		digits = fmt.Sprintf("%d significant, each within one unit of its last place", r.Digits)
+	}
+	fmt.Fprintf(w, "# quadwright %s rule\n", r.Kind)
+	fmt.Fprintf(w, "# measure:  %s, weight %s on %s\n", r.Measure, r.Weight, r.Domain)
+	fmt.Fprintf(w, "# points:   %d\n", r.Points())
+	fmt.Fprintf(w, "# degree:   %d (verified on the printed values; largest residual %s times the tolerance)\n", r.Degree, maxRatio(r))
+	fmt.Fprintf(w, "# digits:   %s\n", digits)
+	fmt.Fprintf(w, "# precision: %d bits, confirmed against an independent computation at %d bits\n", r.WorkingPrec, r.CheckPrec)
+	wn := len("node")
+	for i := range r.Nodes {
+		wn = max(wn, len(r.Nodes[i]))
+	}
+	iw := len(fmt.Sprint(r.Points()))
+	fmt.Fprintf(w, "%*s  %-*s  %s\n", iw, "i", wn+1, " node", " weight")
+	for i := range r.Nodes {
+		fmt.Fprintf(w, "%*d  %-*s  %s\n", iw, i+1, wn+1, padSign(r.Nodes[i]), padSign(r.Weights[i]))
+	}
+}
+
+// padSign lines up digits by giving positive values a leading space where
+// negative ones carry their minus.
+func padSign(s string) string {
+	if strings.HasPrefix(s, "-") {
+		return s
+	}
+	return " " + s
+}
