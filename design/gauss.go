@@ -15,8 +15,50 @@ const MaxPoints = 20000
 
 // Request says which rule to build.
 type Request struct {
-	Points int // number of nodes, >= 1
-	Digits int // significant decimal digits, 1..precision.MaxDigits; 0 selects float64 mode
+	Points int  // number of nodes, >= 1
+	Digits int  // significant decimal digits, 1..precision.MaxDigits; 0 selects float64 mode
+	Auto   bool // as many digits as the input supports (Digits is then ignored)
+}
+
+// AutoDigits is what Request.Auto gives for a measure known exactly (a
+// family with exact parameters): quadruple precision's 34 digits.
+const AutoDigits = 34
+
+// DigitLimiter is implemented by sources whose input carries finitely many
+// digits (a moment list read from a file, measured samples).
+type DigitLimiter interface {
+	// SupportedDigits returns how many significant digits of an n-point
+	// rule the input can vouch for, after the loss in the map from the
+	// input to the rule.
+	SupportedDigits(ctx context.Context, n int) (int, error)
+}
+
+// resolveDigits applies Request.Auto and the input's limit: it returns the
+// digits to print (0: float64 mode), or an error that gives both numbers.
+func resolveDigits(ctx context.Context, src RecurrenceSource, req Request) (int, error) {
+	lim, ok := src.(DigitLimiter)
+	if !ok {
+		if req.Auto {
+			return AutoDigits, nil
+		}
+		return req.Digits, nil
+	}
+	sup, err := lim.SupportedDigits(ctx, req.Points)
+	if err != nil {
+		return 0, err
+	}
+	sup = min(sup, precision.MaxDigits)
+	switch {
+	case req.Auto && sup < 1:
+		return 0, fmt.Errorf("the input supports no correct digit of a %d-point rule", req.Points)
+	case req.Auto:
+		return sup, nil
+	case req.Digits == 0 && sup < 17:
+		return 0, fmt.Errorf("float64 mode needs 17 correct digits to fix the nearest double, but the input supports only %d for a %d-point rule; ask for --digits %d or fewer", sup, req.Points, max(sup, 1))
+	case req.Digits > sup:
+		return 0, fmt.Errorf("--digits %d: the input supports only %d correct digits for a %d-point rule", req.Digits, sup, req.Points)
+	}
+	return req.Digits, nil
 }
 
 // maxAttempts bounds how often the working precision is raised when two
@@ -41,6 +83,11 @@ func Gauss(ctx context.Context, m Measure, req Request) (*Rule, error) {
 	if req.Digits < 0 || req.Digits > precision.MaxDigits {
 		return nil, fmt.Errorf("--digits %d: the digits must be between 1 and %d", req.Digits, precision.MaxDigits)
 	}
+	digits, err := resolveDigits(ctx, m, req)
+	if err != nil {
+		return nil, err
+	}
+	req.Digits, req.Auto = digits, false
 	if max := m.MaxLen(); max >= 0 && max < 2*n {
 		return nil, fmt.Errorf("the measure provides %d recurrence coefficients; an %d-point Gauss rule and its check need %d", max, n, 2*n)
 	}
@@ -56,7 +103,6 @@ func Gauss(ctx context.Context, m Measure, req Request) (*Rule, error) {
 	var start []*big.Float
 	var s1, s2 *stage
 	var texts [2][]string
-	fallback := false
 	for attempt := 0; ; attempt++ {
 		if attempt == maxAttempts {
 			return nil, fmt.Errorf("the %d-point rule could not be confirmed to %s: two computations still disagreed at %d bits", n, digitsLabel(req.Digits), p)
@@ -87,7 +133,7 @@ func Gauss(ctx context.Context, m Measure, req Request) (*Rule, error) {
 		Kind: "gauss", Measure: m.Label(), Weight: m.Weight(), Domain: m.Domain(),
 		Nodes: texts[0], Weights: texts[1], NodeValues: s2.nodes, WeightValues: s2.weights,
 		Digits: req.Digits, WorkingPrec: s2.prec, CheckPrec: s1.prec,
-		Method: "Golub-Welsch start (float64), Newton refinement on the three-term recurrence", Fallback: fallback,
+		Method: "Golub-Welsch start (float64), Newton refinement on the three-term recurrence", Fallback: s1.fallback || s2.fallback,
 	}
 	ex, err := VerifyPrinted(ctx, src, r.Nodes, r.Weights, 2*n-1)
 	if err != nil {

@@ -101,9 +101,10 @@ var forceSturm = false
 
 // stage is one computation of an n-point Gauss rule at one precision.
 type stage struct {
-	prec    uint
-	nodes   []*big.Float
-	weights []*big.Float
+	prec     uint
+	fallback bool // the Sturm-bisection path was taken
+	nodes    []*big.Float
+	weights  []*big.Float
 }
 
 // gaussStage computes the Gauss nodes and weights of rec.Prefix(n) at prec
@@ -152,7 +153,7 @@ func gaussStage(ctx context.Context, rec *Recurrence, n int, prec uint, start []
 			return nil, err
 		}
 		if err == nil && acceptable(xs, ws, b[0], prec) {
-			return toStage(xs, ws, prec), nil
+			return toStage(xs, ws, prec, false), nil
 		}
 	}
 	if err := sturmAll(ctx, a, b, norm, xs, ws, prec, symmetric); err != nil {
@@ -161,11 +162,11 @@ func gaussStage(ctx context.Context, rec *Recurrence, n int, prec uint, start []
 	if !acceptable(xs, ws, b[0], prec) {
 		return nil, errors.New("the Gauss nodes could not be separated at the working precision (the recurrence may not belong to a positive measure)")
 	}
-	return toStage(xs, ws, prec), nil
+	return toStage(xs, ws, prec, true), nil
 }
 
-func toStage(xs, ws []*precision.Real, prec uint) *stage {
-	s := &stage{prec: prec, nodes: make([]*big.Float, len(xs)), weights: make([]*big.Float, len(xs))}
+func toStage(xs, ws []*precision.Real, prec uint, fallback bool) *stage {
+	s := &stage{prec: prec, fallback: fallback, nodes: make([]*big.Float, len(xs)), weights: make([]*big.Float, len(xs))}
 	for i := range xs {
 		s.nodes[i] = xs[i].Big(nil)
 		s.weights[i] = ws[i].Big(nil)

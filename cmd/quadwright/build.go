@@ -3,7 +3,6 @@ package main
 import (
 	"context"
 	"fmt"
-	"math/big"
 	"strconv"
 	"strings"
 
@@ -22,10 +21,6 @@ type buildOptions struct {
 	fixed, nodesFile, breaks      string
 	output                        string
 }
-
-// autoDigits is what --digits auto gives for a measure known exactly (a
-// family with exact parameters): quadruple precision's 34 digits.
-const autoDigits = 34
 
 func newBuildCommand() *cobra.Command {
 	o := &buildOptions{}
@@ -58,7 +53,7 @@ written. A rule that cannot be verified is an error, not a result.`,
 	f.StringVar(&o.measure, "measure", "", "file of a discrete measure (not available in this version)")
 	f.StringVar(&o.points, "points", "", fmt.Sprintf("number of nodes N, 1 to %d (required)", design.MaxPoints))
 	f.StringVar(&o.kind, "kind", "gauss", "kind of rule: gauss")
-	f.StringVar(&o.digits, "digits", "", fmt.Sprintf("significant decimal digits, all correct, 1 to %d, or auto (%d for an exactly known measure); default: float64 mode, the nearest double to every value", precision.MaxDigits, autoDigits))
+	f.StringVar(&o.digits, "digits", "", fmt.Sprintf("significant decimal digits, all correct, 1 to %d, or auto (%d for an exactly known measure); default: float64 mode, the nearest double to every value", precision.MaxDigits, design.AutoDigits))
 	f.StringVar(&o.format, "format", "text", "output format: text, json or csv")
 	f.StringVar(&o.fixed, "fixed", "", "prescribed nodes (not available in this version)")
 	f.StringVar(&o.nodesFile, "nodes", "", "file of prescribed nodes (not available in this version)")
@@ -70,20 +65,6 @@ written. A rule that cannot be verified is an error, not a result.`,
 func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 	if ctx == nil {
 		ctx = context.Background()
-	}
-	for _, un := range []struct{ name, val string }{
-		{"--weight", o.weight}, {"--moments", o.momentsFile}, {"--measure", o.measure},
-		{"--fixed", o.fixed}, {"--nodes", o.nodesFile}, {"--breaks", o.breaks},
-	} {
-		if un.val != "" {
-			return fmt.Errorf("%s: this version builds rules for --family measures only", un.name)
-		}
-	}
-	if o.family == "" {
-		return fmt.Errorf("no measure given: name one with --family (for example --family legendre)")
-	}
-	if o.kind != "gauss" {
-		return fmt.Errorf("--kind %q: this version builds gauss rules only", o.kind)
 	}
 	format, err := parseFormat(o.format)
 	if err != nil {
@@ -99,36 +80,20 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 	if n < 1 || n > design.MaxPoints {
 		return fmt.Errorf("--points %d: the number of points must be between 1 and %d", n, design.MaxPoints)
 	}
-	digits, err := parseDigits(o.digits)
+	req := design.Request{Points: n}
+	if req.Digits, req.Auto, err = parseDigits(o.digits); err != nil {
+		return err
+	}
+	m, fam, err := o.resolveMeasure()
 	if err != nil {
 		return err
 	}
-	alpha, err := optionalRat("--alpha", o.alpha)
-	if err != nil {
-		return err
-	}
-	beta, err := optionalRat("--beta", o.beta)
-	if err != nil {
-		return err
-	}
-	var iv *moments.Interval
-	if o.interval != "" {
-		v, err := moments.ParseInterval(o.interval)
-		if err != nil {
-			return fmt.Errorf("--interval: %v", err)
-		}
-		iv = &v
-	}
-	fam, err := moments.NewFamily(o.family, alpha, beta, iv)
-	if err != nil {
-		return err
-	}
-	rule, err := design.Gauss(ctx, design.FamilySource{Family: fam}, design.Request{Points: n, Digits: digits})
+	rule, err := o.makeRule(ctx, m, req)
 	if err != nil {
 		return err
 	}
 	return writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
-		return writeRule(w, rule, &fam, format)
+		return writeRule(w, rule, fam, format)
 	})
 }
 
@@ -140,32 +105,22 @@ func parseFormat(s string) (string, error) {
 	return "", fmt.Errorf("--format %q: choose text, json or csv", s)
 }
 
-// parseDigits reads --digits: "" is float64 mode (0), auto is autoDigits.
-func parseDigits(s string) (int, error) {
+// parseDigits reads --digits: "" is float64 mode (0), auto asks for as
+// many digits as the input supports.
+func parseDigits(s string) (digits int, auto bool, err error) {
 	s = strings.TrimSpace(s)
 	switch strings.ToLower(s) {
 	case "":
-		return 0, nil
+		return 0, false, nil
 	case "auto":
-		return autoDigits, nil
+		return 0, true, nil
 	}
 	d, err := strconv.Atoi(s)
 	if err != nil {
-		return 0, fmt.Errorf("--digits %q: give a whole number of significant digits from 1 to %d, or auto", s, precision.MaxDigits)
+		return 0, false, fmt.Errorf("--digits %q: give a whole number of significant digits from 1 to %d, or auto", s, precision.MaxDigits)
 	}
 	if d < 1 || d > precision.MaxDigits {
-		return 0, fmt.Errorf("--digits %d: the digits must be between 1 and %d", d, precision.MaxDigits)
+		return 0, false, fmt.Errorf("--digits %d: the digits must be between 1 and %d", d, precision.MaxDigits)
 	}
-	return d, nil
-}
-
-func optionalRat(flag, s string) (*big.Rat, error) {
-	if strings.TrimSpace(s) == "" {
-		return nil, nil
-	}
-	r, err := precision.ParseExact(s)
-	if err != nil {
-		return nil, fmt.Errorf("%s: %v", flag, err)
-	}
-	return r, nil
+	return d, false, nil
 }
