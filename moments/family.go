@@ -195,18 +195,32 @@ func (f Family) Weight() string {
 	var terms []string
 	if s := new(big.Rat).Add(a, b); s.Sign() != 0 {
 		scale := new(big.Rat).Quo(big.NewRat(2, 1), new(big.Rat).Sub(hi, lo))
-		terms = append(terms, "("+RatString(scale)+")^"+power(s))
+		if scale.Cmp(big.NewRat(1, 1)) != 0 {
+			terms = append(terms, raised("("+RatString(scale)+")", s))
+		}
 	}
 	if a.Sign() != 0 {
-		terms = append(terms, "("+RatString(hi)+"-x)^"+power(a))
+		terms = append(terms, raised("("+RatString(hi)+"-x)", a))
 	}
 	if b.Sign() != 0 {
-		terms = append(terms, "(x"+signed(new(big.Rat).Neg(lo))+")^"+power(b))
+		base := "x"
+		if lo.Sign() != 0 {
+			base = "(x" + signed(new(big.Rat).Neg(lo)) + ")"
+		}
+		terms = append(terms, raised(base, b))
 	}
 	if len(terms) == 0 {
 		return "1"
 	}
 	return strings.Join(terms, "*")
+}
+
+// raised writes base^e, or base alone for e = 1.
+func raised(base string, e *big.Rat) string {
+	if e.Cmp(big.NewRat(1, 1)) == 0 {
+		return base
+	}
+	return base + "^" + power(e)
 }
 
 // power writes an exponent so that it parses back: a bare decimal (signed

@@ -25,7 +25,7 @@ type buildOptions struct {
 func newBuildCommand() *cobra.Command {
 	o := &buildOptions{}
 	cmd := &cobra.Command{
-		Use:   "build",
+		Use:   "build [SPEC.toml]",
 		Short: "Build a verified one-dimensional quadrature rule",
 		Long: `Build the rule of a measure, verify it and print it.
 
@@ -33,13 +33,22 @@ The measure is a classical family (--family, with --alpha/--beta where it has
 parameters, mapped affinely onto --interval for the finite families). The rule
 is computed twice at two working precisions; only digits on which both agree
 are printed, and the printed values are tested for exactness before they are
-written. A rule that cannot be verified is an error, not a result.`,
+written. A rule that cannot be verified is an error, not a result.
+
+The options can also come from a spec file (TOML, one key per flag:
+points = 12, interval = "0,1", ...); flags given beside it override it.`,
 		Example: `  quadwright build --family legendre --points 5 --digits 30
   quadwright build --family jacobi --alpha -0.7 --beta 2.3 --points 10 --format json
   quadwright build --family laguerre --alpha 1.5 --points 12 --format csv -o laguerre12.csv
-  quadwright build --family legendre --interval 0,2 --points 4`,
-		Args: cobra.NoArgs,
+  quadwright build --family legendre --interval 0,2 --points 4
+  quadwright build specs/spectral-lobatto.toml --digits 20`,
+		Args: cobra.MaximumNArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
+			if len(args) == 1 {
+				if err := applySpec(cmd, args[0]); err != nil {
+					return err
+				}
+			}
 			return runBuild(cmd.Context(), o, cmd)
 		},
 	}
