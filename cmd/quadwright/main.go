@@ -5,9 +5,12 @@
 package main
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"os"
+	"os/signal"
+	"syscall"
 )
 
 // version is the program version printed by --version and stamped into
@@ -27,8 +30,16 @@ type thresholdError struct{ msg string }
 func (e *thresholdError) Error() string { return e.msg }
 
 func main() {
+	// Ctrl-C cancels the context; the library stops at its next check and
+	// no output file is written (files are renamed into place only when
+	// complete).
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
+	defer stop()
 	root := newRootCommand()
-	if err := root.Execute(); err != nil {
+	if err := root.ExecuteContext(ctx); err != nil {
+		if errors.Is(err, context.Canceled) {
+			err = errors.New("interrupted; nothing was written")
+		}
 		fmt.Fprintln(os.Stderr, "quadwright: "+err.Error())
 		var te *thresholdError
 		if errors.As(err, &te) {
