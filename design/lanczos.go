@@ -1,0 +1,159 @@
+package design
+
+import (
+	"context"
+	"fmt"
+	"math/big"
+
+	"quadwright/precision"
+)
+
+// Lanczos returns the first n recurrence pairs of the discrete measure
+// sum_i c[i] delta(x - x[i]). On entry x holds distinct support points (in
+// any order) and c positive masses, len(x) == len(c) >= n >= 1; they are
+// read, never changed.
+//
+// The method is the Rutishauser-Kahan-Pal-Walker form of the Lanczos
+// process, which adds one support point at a time to the Jacobi matrix by
+// a chase of Givens rotations in squared form (W. B. Gragg and W. J.
+// Harrod, "The numerically stable reconstruction of Jacobi matrices from
+// spectral data", Numer. Math. 44, 1984; the square-root-free layout is
+// that of W. Gautschi, Orthogonal Polynomials: Computation and
+// Approximation, Oxford 2004, section 2.2.3.2). The bulge of each chase only
+// travels downward, so rows below n never influence rows above it: the
+// matrix is kept to its first n rows, and the cost is O(len(x) n) instead
+// of O(len(x)^2). Every operation is rounded to prec bits; the method is
+// stable (orthogonal transformations), so the pairs carry errors of a few
+// ulp times a modest multiple of n.
+func Lanczos(ctx context.Context, x, c []*big.Float, n int, prec uint) (*Recurrence, error) {
+	M := len(x)
+	if len(c) != M || n < 1 || n > M {
+		panic(fmt.Sprintf("design: Lanczos(%d) with %d points and %d masses", n, M, len(c)))
+	}
+	rows := min(n+1, M)
+	p0 := precision.NewRealSlice(rows, prec) // alpha_k
+	p1 := precision.NewRealSlice(rows, prec) // beta_k
+	for l := 0; l < rows; l++ {
+		p0[l].SetBig(x[l])
+	}
+	p1[0].SetBig(c[0])
+	r := precision.NewRealSlice(9, prec)
+	pk, gam, sig, t, lam, rho, tmp, tsig, tk := r[0], r[1], r[2], r[3], r[4], r[5], r[6], r[7], r[8]
+	u, inv, one := precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec).SetInt64(1)
+	for k := 1; k < M; k++ {
+		if k%64 == 0 {
+			if err := ctx.Err(); err != nil {
+				return nil, err
+			}
+		}
+		pk.SetBig(c[k])
+		gam.SetInt64(1)
+		sig.SetInt64(0)
+		t.SetInt64(0)
+		lam.SetBig(x[k])
+		top := min(k+1, rows)
+		for l := 0; l < top; l++ {
+			if l == k {
+				// The new point's own row starts as alpha = lambda.
+				p0[l].Set(lam)
+			}
+			rho.Add(p1[l], pk)
+			tmp.Mul(gam, rho)
+			tsig.Set(sig)
+			if rho.Sign() <= 0 {
+				gam.SetInt64(1)
+				sig.SetInt64(0)
+			} else {
+				inv.Quo(one, rho) // one division serves both ratios
+				gam.Mul(p1[l], inv)
+				sig.Mul(pk, inv)
+			}
+			u.Sub(p0[l], lam)
+			tk.Mul(sig, u)
+			u.Mul(gam, t)
+			tk.Sub(tk, u)
+			u.Sub(tk, t)
+			p0[l].Sub(p0[l], u)
+			t.Set(tk)
+			if sig.Sign() <= 0 {
+				pk.Mul(tsig, p1[l])
+			} else {
+				pk.Mul(t, t)
+				pk.Quo(pk, sig)
+			}
+			p1[l].Set(tmp)
+		}
+	}
+	return realsToRecurrence(p0[:n], p1[:n], prec), nil
+}
+
+// Stieltjes returns the first n recurrence pairs of the discrete measure
+// sum_i c[i] delta(x - x[i]) by the discretised Stieltjes procedure: the
+// monic orthogonal polynomials are run at every support point by their own
+// recurrence, and
+//
+//	alpha_k = sum c pi_k^2 x / sum c pi_k^2,  beta_k = sum c pi_k^2 / sum c pi_{k-1}^2,
+//
+// (T. J. Stieltjes, "Quelques recherches sur la theorie des quadratures
+// dites mecaniques", Ann. Sci. Ecole Norm. Sup. 1, 1884; W. Gautschi, "On
+// generating orthogonal polynomials", SIAM J. Sci. Statist. Comput. 3,
+// 1982, section 2.2). Same contract on x and c as Lanczos. Every
+// operation is rounded to prec bits. The procedure is not backward stable:
+// when n comes close to len(x) the polynomials lose relative accuracy at
+// some points, and the pairs can lose bits; Lanczos is the stable route,
+// this one the independent check. Cost O(len(x) n).
+func Stieltjes(ctx context.Context, x, c []*big.Float, n int, prec uint) (*Recurrence, error) {
+	M := len(x)
+	if len(c) != M || n < 1 || n > M {
+		panic(fmt.Sprintf("design: Stieltjes(%d) with %d points and %d masses", n, M, len(c)))
+	}
+	xs := precision.NewRealSlice(M, prec)
+	cs := precision.NewRealSlice(M, prec)
+	prev := precision.NewRealSlice(M, prec) // pi_{k-1}
+	cur := precision.NewRealSlice(M, prec)  // pi_k
+	for i := 0; i < M; i++ {
+		xs[i].SetBig(x[i])
+		cs[i].SetBig(c[i])
+		cur[i].SetInt64(1)
+	}
+	al := precision.NewRealSlice(n, prec)
+	be := precision.NewRealSlice(n, prec)
+	norm, mom, oldNorm := precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec)
+	q, t, u := precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec)
+	for k := 0; k < n; k++ {
+		if err := ctx.Err(); err != nil {
+			return nil, err
+		}
+		norm.SetInt64(0)
+		mom.SetInt64(0)
+		for i := 0; i < M; i++ {
+			q.Mul(cur[i], cur[i])
+			q.Mul(q, cs[i])
+			norm.Add(norm, q)
+			mom.MulAdd(q, xs[i], mom)
+		}
+		if norm.Sign() <= 0 {
+			return nil, fmt.Errorf("the discrete measure has fewer than %d support points of positive mass", k+1)
+		}
+		al[k].Quo(mom, norm)
+		if k == 0 {
+			be[0].Set(norm)
+		} else {
+			be[k].Quo(norm, oldNorm)
+		}
+		oldNorm.Set(norm)
+		if k+1 == n {
+			break
+		}
+		for i := 0; i < M; i++ {
+			t.Sub(xs[i], al[k])
+			u.Mul(be[k], prev[i])
+			if k == 0 {
+				u.SetInt64(0)
+			}
+			prev[i].MulSub(t, cur[i], u)
+			prev[i], cur[i] = cur[i], prev[i]
+		}
+	}
+	return realsToRecurrence(al, be, prec), nil
+}
