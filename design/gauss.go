@@ -76,74 +76,36 @@ const maxAttempts = 6
 // 10 u, u one unit in the D-th printed digit); a rule that fails any of this
 // is an error, never a result.
 func Gauss(ctx context.Context, m Measure, req Request) (*Rule, error) {
-	n := req.Points
-	if n < 1 || n > MaxPoints {
-		return nil, fmt.Errorf("--points %d: the number of points must be between 1 and %d", n, MaxPoints)
-	}
-	if req.Digits < 0 || req.Digits > precision.MaxDigits {
-		return nil, fmt.Errorf("--digits %d: the digits must be between 1 and %d", req.Digits, precision.MaxDigits)
-	}
-	digits, err := resolveDigits(ctx, m, req)
+	req, err := checkRequest(ctx, m, req, 0)
 	if err != nil {
 		return nil, err
 	}
-	req.Digits, req.Auto = digits, false
-	if max := m.MaxLen(); max >= 0 && max < 2*n {
-		return nil, fmt.Errorf("the measure provides %d recurrence coefficients; an %d-point Gauss rule and its check need %d", max, n, 2*n)
+	n := req.Points
+	need := 2 * n
+	if _, ok := m.(Verifier); ok {
+		need = n // it verifies from n pairs (see Verifier)
 	}
-	target := req.Digits
-	if target == 0 {
-		target = 17
+	if max := m.MaxLen(); max >= 0 && max < need {
+		return nil, fmt.Errorf("the measure provides %d recurrence coefficients; an %d-point Gauss rule and its check need %d", max, n, need)
 	}
-	p := precision.WorkingPrec(target, n)
 	src := &cachedSource{src: m}
-	if err := src.reserve(2*n, confirmPrec(p)); err != nil {
+	if err := src.reserve(need, confirmPrec(firstPrec(req.Digits, n))); err != nil {
 		return nil, err
 	}
-	var start []*big.Float
-	var s1, s2 *stage
-	var texts [2][]string
-	for attempt := 0; ; attempt++ {
-		if attempt == maxAttempts {
-			return nil, fmt.Errorf("the %d-point rule could not be confirmed to %s: two computations still disagreed at %d bits", n, digitsLabel(req.Digits), p)
-		}
+	s1, s2, texts, err := confirmStages(n, req.Digits, func(p uint, prev *stage) (*stage, error) {
 		rec, err := src.Recurrence(n, p)
 		if err != nil {
 			return nil, err
 		}
-		if s1, err = gaussStage(ctx, rec, n, p, start); err != nil {
-			return nil, err
-		}
-		p2 := confirmPrec(p)
-		rec2, err := src.Recurrence(n, p2)
-		if err != nil {
-			return nil, err
-		}
-		if s2, err = gaussStage(ctx, rec2, n, p2, s1.nodes); err != nil {
-			return nil, err
-		}
-		var ok bool
-		if texts, ok = agree(s1, s2, req.Digits); ok {
-			break
-		}
-		start = s2.nodes
-		p = precision.RaisePrec(p2)
-	}
-	r := &Rule{
-		Kind: "gauss", Measure: m.Label(), Weight: m.Weight(), Domain: m.Domain(),
-		Nodes: texts[0], Weights: texts[1], NodeValues: s2.nodes, WeightValues: s2.weights,
-		Digits: req.Digits, WorkingPrec: s2.prec, CheckPrec: s1.prec,
-		Method: "Golub-Welsch start (float64), Newton refinement on the three-term recurrence", Fallback: s1.fallback || s2.fallback,
-	}
-	ex, err := VerifyPrinted(ctx, src, r.Nodes, r.Weights, 2*n-1)
+		return gaussStage(ctx, rec, n, p, startNodes(prev))
+	})
 	if err != nil {
 		return nil, err
 	}
-	r.Exactness, r.Degree = ex, ex.Degree
-	if ex.Degree < 2*n-1 {
-		return nil, fmt.Errorf("the %d-point rule printed to %s integrates only through degree %d, not %d; it is not printed", n, digitsLabel(req.Digits), ex.Degree, 2*n-1)
+	r := newRule("gauss", m, s1, s2, texts, req.Digits, "Golub-Welsch start (float64), Newton refinement on the three-term recurrence")
+	if err := verifyRule(ctx, src, r, 2*n-1, 2*n-1); err != nil {
+		return nil, err
 	}
-	r.Degree = 2*n - 1
 	return r, nil
 }
 

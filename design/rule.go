@@ -30,7 +30,7 @@ func (s FamilySource) Domain() moments.Interval { return s.Family.Interval }
 // Rule is a verified quadrature rule with its provenance. It is built once,
 // by this package, and flows on unchanged to reports and writers.
 type Rule struct {
-	Kind    string           // "gauss"
+	Kind    string           // "gauss", "radau", "lobatto", "kronrod", "anti-gauss", "interpolatory", "newton-cotes", ...
 	Measure string           // Measure.Label()
 	Weight  string           // Measure.Weight()
 	Domain  moments.Interval // Measure.Domain()
@@ -54,6 +54,29 @@ type Rule struct {
 	CheckPrec   uint // bits of the independent computation they were confirmed against
 	Method      string
 	Fallback    bool // the Sturm-bisection path was needed
+
+	// Fixed lists the printed prescribed nodes (radau, lobatto, gauss with
+	// fixed nodes; every node of an interpolatory rule), ascending; nil
+	// when no node was prescribed.
+	Fixed []string
+	// Paired is the Gauss rule that a kronrod rule extends or an
+	// anti-gauss rule pairs with (built and verified on its own); nil for
+	// the other kinds.
+	Paired *Rule
+	// Stability summarises the signs and the spread of the weights and
+	// where the nodes lie; nil when it was not computed.
+	Stability *Stability
+	// Notes are sentences about the rule worth showing with it (an error
+	// estimate the kind supports, an instability); nil when there are none.
+	Notes []string
+}
+
+// Stability is how far a rule is from one with positive weights and
+// nodes inside its support, computed from WeightValues and NodeValues.
+type Stability struct {
+	NegativeWeights int     // weights < 0
+	Factor          float64 // sum |w_i| / |sum w_i|, 1 when no weight is negative
+	NodesOutside    int     // nodes outside the closed support
 }
 
 // Points is the number of nodes.
