@@ -1,12 +1,14 @@
 package main
 
 import (
+	"encoding/json"
 	"fmt"
 	"strings"
 
 	"quadwright/design"
 	"quadwright/moments"
 	"quadwright/rulefile"
+	"quadwright/stability"
 )
 
 // maxRatio is the largest exactness residual, as a share of the
@@ -19,7 +21,15 @@ func maxRatio(r *design.Rule) string {
 func writeRule(w *strings.Builder, r *design.Rule, fam *moments.Family, format string) error {
 	switch format {
 	case "json":
-		b, err := rulefile.FromRule(r, fam, "quadwright "+version).MarshalIndent()
+		f := rulefile.FromRule(r, fam, "quadwright "+version)
+		s, err := stability.Summarize(r)
+		if err != nil {
+			return err
+		}
+		if f.Report, err = json.Marshal(s); err != nil {
+			return err
+		}
+		b, err := f.MarshalIndent()
 		if err != nil {
 			return err
 		}
@@ -30,12 +40,18 @@ func writeRule(w *strings.Builder, r *design.Rule, fam *moments.Family, format s
 			fmt.Fprintf(w, "%s,%s\n", r.Nodes[i], r.Weights[i])
 		}
 	default:
-		writeText(w, r)
+		return writeText(w, r)
 	}
 	return nil
 }
 
-func writeText(w *strings.Builder, r *design.Rule) {
+// writeText renders r as a commented header, with the short stability
+// report (stability.Summarize), and a table of nodes and weights.
+func writeText(w *strings.Builder, r *design.Rule) error {
+	s, err := stability.Summarize(r)
+	if err != nil {
+		return err
+	}
 	digits := "float64 (each value the nearest double, shortest form)"
 	if r.Digits > 0 {
 		digits = fmt.Sprintf("%d significant, each within one unit of its last place", r.Digits)
@@ -46,6 +62,10 @@ func writeText(w *strings.Builder, r *design.Rule) {
 	fmt.Fprintf(w, "# degree:   %d (verified on the printed values; largest residual %s times the tolerance)\n", r.Degree, maxRatio(r))
 	fmt.Fprintf(w, "# digits:   %s\n", digits)
 	fmt.Fprintf(w, "# precision: %d bits, confirmed against an independent computation at %d bits\n", r.WorkingPrec, r.CheckPrec)
+	w.WriteString(s.TextBlock())
+	for _, note := range r.Notes {
+		fmt.Fprintf(w, "# note:     %s\n", note)
+	}
 	wn := len("node")
 	for i := range r.Nodes {
 		wn = max(wn, len(r.Nodes[i]))
@@ -55,6 +75,7 @@ func writeText(w *strings.Builder, r *design.Rule) {
 	for i := range r.Nodes {
 		fmt.Fprintf(w, "%*d  %-*s  %s\n", iw, i+1, wn+1, padSign(r.Nodes[i]), padSign(r.Weights[i]))
 	}
+	return nil
 }
 
 // padSign lines up digits by giving positive values a leading space where
