@@ -134,6 +134,8 @@ func CheckExactness(ctx context.Context, rec *Recurrence, nodes, weights []*big.
 // |w_i| (|p_j(x_i)| + |x_i p_j'(x_i)|) to B[j], j = 0..len(S)-1, with p_j
 // the monic orthogonal polynomials run by the forward recurrence.
 func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights []*big.Float, S, B []*precision.Real, prec uint) error {
+	prog := progressOf(ctx)
+	prog.Grow(int64(len(nodes)))
 	r := precision.NewRealSlice(12, prec)
 	x, w, aw, ax := r[0], r[1], r[2], r[3]
 	p0, p1, d0, d1, t, u, v, z := r[4], r[5], r[6], r[7], r[8], r[9], r[10], r[11]
@@ -143,6 +145,9 @@ func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights 
 			if err := ctx.Err(); err != nil {
 				return err
 			}
+		}
+		if i > 0 {
+			prog.Advance(1)
 		}
 		x.SetBig(nodes[i])
 		w.SetBig(weights[i])
@@ -172,6 +177,9 @@ func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights 
 			p0, p1, v = p1, v, p0
 			d0, d1, z = d1, z, d0
 		}
+	}
+	if len(nodes) > 0 {
+		prog.Advance(1)
 	}
 	return nil
 }

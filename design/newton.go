@@ -207,6 +207,8 @@ func parallelNodes(ctx context.Context, a, b []*precision.Real, prec uint, lo, h
 	if hi-lo < 2*workers {
 		workers = 1
 	}
+	prog := progressOf(ctx)
+	prog.Grow(int64(hi - lo))
 	var next atomic.Int64
 	next.Store(int64(lo))
 	var once sync.Once
@@ -232,6 +234,7 @@ func parallelNodes(ctx context.Context, a, b []*precision.Real, prec uint, lo, h
 					next.Store(int64(hi))
 					return
 				}
+				prog.Advance(1)
 			}
 		}()
 	}

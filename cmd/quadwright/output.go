@@ -32,7 +32,12 @@ func writeFileAtomic(path string, data []byte) error {
 		return fmt.Errorf("-o %s: cannot write there (%v)", path, unwrapPathError(err))
 	}
 	name := tmp.Name()
-	_, werr := tmp.Write(data)
+	// CreateTemp makes the file private (0600); a rule file is ordinary
+	// output, readable like any file the user's tools write.
+	werr := tmp.Chmod(0o644)
+	if werr == nil {
+		_, werr = tmp.Write(data)
+	}
 	cerr := tmp.Close()
 	if werr == nil {
 		werr = cerr
