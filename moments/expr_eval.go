@@ -1,6 +1,7 @@
 package moments
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/big"
@@ -103,8 +104,21 @@ func (e *Expr) EvalBig(prec uint, vals ...*big.Float) (*big.Float, error) {
 		}
 		cp = max(cp, v.Prec())
 	}
-	ev := bigEval{e: e, prec: prec, constPrec: cp, vals: vals}
-	r, err := ev.eval(e.root)
+	// A divisor that cancels to zero at prec bits (exp(x)-1 at x = 1e-138)
+	// is evaluated again at twice the bits, up to maxCancelRetries times:
+	// the value of x/(exp(x)-1) there is well defined, only the working
+	// precision was too short to see it. A divisor that is zero at every
+	// precision stays an error.
+	var r *big.Float
+	var err error
+	for try, p := 0, prec; ; try, p = try+1, 2*p {
+		ev := bigEval{e: e, prec: p, constPrec: max(cp, p), vals: vals}
+		r, err = ev.eval(e.root)
+		var ce *cancelError
+		if err == nil || !errors.As(err, &ce) || try == maxCancelRetries {
+			break
+		}
+	}
 	if err != nil {
 		return nil, err
 	}
@@ -113,6 +127,16 @@ func (e *Expr) EvalBig(prec uint, vals ...*big.Float) (*big.Float, error) {
 	}
 	return r, nil
 }
+
+// maxCancelRetries bounds the doublings of precision EvalBig tries when a
+// divisor cancels to zero (32 times the bits asked at most).
+const maxCancelRetries = 5
+
+// cancelError is a division by a computed zero, which more bits may resolve.
+type cancelError struct{ err error }
+
+func (e *cancelError) Error() string { return e.err.Error() }
+func (e *cancelError) Unwrap() error { return e.err }
 
 type bigEval struct {
 	e         *Expr
@@ -184,6 +208,9 @@ func (ev *bigEval) eval(n *node) (*big.Float, error) {
 		return ev.finite(n, ev.wide(a, b).Mul(a, b))
 	case opDiv:
 		if b.Sign() == 0 {
+			if n.b.op != opConst {
+				return nil, &cancelError{ev.fail(n, "division by zero")}
+			}
 			return nil, ev.fail(n, "division by zero")
 		}
 		return ev.finite(n, ev.wide(a, b).Quo(a, b))
