@@ -164,7 +164,12 @@ func TestDemo(t *testing.T) {
 	if !strings.Contains(out, filepath.Join(dir, "demo")) {
 		t.Errorf("demo does not say where it wrote: %s", out)
 	}
-	if _, err := os.Stat(filepath.Join(dir, "demo", "report.txt")); err != nil {
-		t.Error(err)
+	for _, f := range []string{"summary.txt", "audit-newton-cotes-11.html", "audit-gauss-legendre-11.html", "bem-log-panel.json", "spectral-lobatto.json", "measured-moments.json"} {
+		if _, err := os.Stat(filepath.Join(dir, "demo", f)); err != nil {
+			t.Error(err)
+		}
+	}
+	if !strings.Contains(out, "4 negative weights") {
+		t.Errorf("the demo's audit of the poor rule does not show its negative weights:\n%s", out)
 	}
 }

@@ -3,8 +3,10 @@ package main
 import (
 	"context"
 	"fmt"
+	"io/fs"
 	"os"
 	"path/filepath"
+	"sort"
 	"strings"
 	"time"
 
@@ -12,37 +14,21 @@ import (
 
 	"quadwright/design"
 	"quadwright/moments"
+	"quadwright/specs"
+	"quadwright/stability"
 )
-
-// demoCase is one rule of the built-in scenario.
-type demoCase struct {
-	file, purpose string
-	family        string
-	alpha, beta   string
-	interval      string
-	points        int
-	digits        int
-}
-
-// The built-in scenario: the rules a small multiphysics team asks for in its
-// first week. Every case is an invented but realistic request.
-var demoCases = []demoCase{
-	{"beam-legendre-6.json", "6-point Gauss rule on a beam element's axis [0, 2.5] (m), for a stiffness integral", "legendre", "", "", "0,2.5", 6, 30},
-	{"crack-tip-jacobi-8.json", "8 points for (1-x)^-0.5 (1+x)^0.3 near a crack tip, where the stress field is singular at x = 1", "jacobi", "-0.5", "0.3", "", 8, 34},
-	{"radiation-laguerre-10.json", "10 points for x^1.5 e^-x, the photon-energy weight in a grey-body radiation integral", "laguerre", "1.5", "", "", 10, 30},
-	{"oscillator-hermite-12.json", "12 points for e^(-x^2), for ground-state expectation values of a quantum oscillator", "hermite", "", "", "", 12, 30},
-	{"plate-gegenbauer-5.json", "5 points for (1-x^2)^1, a parabolic inflow profile across a channel", "gegenbauer", "1.5", "", "", 5, 25},
-}
 
 func newDemoCommand() *cobra.Command {
 	var out string
 	cmd := &cobra.Command{
 		Use:   "demo",
-		Short: "Run the built-in example scenario and write its rules and report",
-		Long: `Build the rules of the built-in scenario (a beam element, a crack-tip singularity,
-a radiation integral, a quantum oscillator and a channel-flow profile), verify
-each, print a summary, and write every rule file and a summary report into a
-folder that the command names.`,
+		Short: "Run the built-in example scenario: build the example specs, audit a poor rule beside a good one",
+		Long: `Run the built-in scenario end to end: build and verify the rule of every
+example spec (a boundary-element log panel, a kinetic half-range Maxwellian, an
+axisymmetric radius weight, spectral-element Lobatto points, a weight known only
+from measured moments), then audit a deliberately poor rule (11-point closed
+Newton-Cotes) beside a good one (11-point Gauss-Legendre) and write the rule
+files, a summary and the HTML audit pages into a folder that the command names.`,
 		Example: `  quadwright demo
   quadwright demo --out ./demo-output`,
 		Args: cobra.NoArgs,
@@ -50,7 +36,7 @@ folder that the command names.`,
 			return runDemo(cmd.Context(), out, cmd)
 		},
 	}
-	cmd.Flags().StringVar(&out, "out", filepath.Join(os.TempDir(), "quadwright-demo"), "folder for the demo's rule files and report (created if missing)")
+	cmd.Flags().StringVar(&out, "out", filepath.Join(os.TempDir(), "quadwright-demo"), "folder for the demo's rule files and reports (created if missing)")
 	return cmd
 }
 
@@ -58,52 +44,95 @@ func runDemo(ctx context.Context, out string, cmd *cobra.Command) error {
 	if ctx == nil {
 		ctx = context.Background()
 	}
-	if err := os.MkdirAll(out, 0o755); err != nil {
+	specDir := filepath.Join(out, "specs")
+	if err := os.MkdirAll(specDir, 0o755); err != nil {
 		return fmt.Errorf("--out %s: cannot create the folder (%v)", out, unwrapPathError(err))
 	}
-	var report strings.Builder
-	fmt.Fprintf(&report, "quadwright %s demo: verified Gauss rules for five requests\n\n", version)
-	w := cmd.OutOrStdout()
-	fmt.Fprintf(w, "quadwright demo: building and verifying %d rules\n", len(demoCases))
-	for _, c := range demoCases {
-		alpha, _ := optionalRat("--alpha", c.alpha)
-		beta, _ := optionalRat("--beta", c.beta)
-		var iv *moments.Interval
-		if c.interval != "" {
-			v, err := moments.ParseInterval(c.interval)
-			if err != nil {
-				return err
-			}
-			iv = &v
+	// The embedded specs are written out first, so that the paths they name
+	// (a moments table) resolve beside them, as for a user's own specs.
+	names, err := fs.Glob(specs.Files, "*")
+	if err != nil {
+		return err
+	}
+	for _, n := range names {
+		b, _ := specs.Files.ReadFile(n)
+		if err := writeFileAtomic(filepath.Join(specDir, n), b); err != nil {
+			return err
 		}
-		fam, err := moments.NewFamily(c.family, alpha, beta, iv)
-		if err != nil {
+	}
+	w := cmd.OutOrStdout()
+	var summary strings.Builder
+	fmt.Fprintf(&summary, "quadwright %s demo\n\n", version)
+	tomls, _ := filepath.Glob(filepath.Join(specDir, "*.toml"))
+	sort.Strings(tomls)
+	fmt.Fprintf(w, "quadwright demo: building and verifying the rules of %d example specs\n", len(tomls))
+	for _, sp := range tomls {
+		base := strings.TrimSuffix(filepath.Base(sp), ".toml")
+		dest := filepath.Join(out, base+".json")
+		b := newBuildCommand()
+		b.SetContext(ctx)
+		b.SetOut(w)
+		b.Flags().Bool("quiet", true, "")
+		if err := applySpec(b, sp); err != nil {
+			return err
+		}
+		if err := b.Flags().Set("output", dest); err != nil {
 			return err
 		}
 		t0 := time.Now()
-		rule, err := design.Gauss(ctx, design.FamilySource{Family: fam}, design.Request{Points: c.points, Digits: c.digits})
-		if err != nil {
-			return fmt.Errorf("demo case %s: %v", c.file, err)
+		if err := b.RunE(b, nil); err != nil {
+			return fmt.Errorf("demo spec %s: %v", filepath.Base(sp), err)
 		}
-		el := time.Since(t0)
-		var b strings.Builder
-		if err := writeRule(&b, rule, &fam, "json"); err != nil {
-			return err
-		}
-		if err := writeFileAtomic(filepath.Join(out, c.file), []byte(b.String())); err != nil {
-			return err
-		}
-		line := fmt.Sprintf("%-28s %-34s N=%-3d degree %-3d %d digits  (%s)", c.file, rule.Measure, rule.Points(), rule.Degree, rule.Digits, el.Round(time.Millisecond))
+		line := fmt.Sprintf("%-26s -> %s  (%s)", base, filepath.Base(dest), time.Since(t0).Round(time.Millisecond))
 		fmt.Fprintln(w, "  "+line)
-		fmt.Fprintf(&report, "%s\n  %s\n  weight %s on %s; verified degree %d; %d digits confirmed at %d against %d bits\n  smallest node %s, largest node %s\n\n",
-			c.file, c.purpose, rule.Weight, rule.Domain, rule.Degree, rule.Digits, rule.WorkingPrec, rule.CheckPrec, rule.Nodes[0], rule.Nodes[len(rule.Nodes)-1])
+		fmt.Fprintln(&summary, line)
 	}
-	report.WriteString(cautionText)
-	rp := filepath.Join(out, "report.txt")
-	if err := writeFileAtomic(rp, []byte(report.String())); err != nil {
+
+	fmt.Fprintln(w, "quadwright demo: auditing a poor rule beside a good one (11 points, weight 1 on [-1, 1])")
+	fmt.Fprintln(&summary, "\nAudits, weight 1 on [-1, 1]:")
+	legendre, err := moments.NewFamily("legendre", nil, nil, nil)
+	if err != nil {
 		return err
 	}
-	fmt.Fprintf(w, "wrote the rule files and the report to %s (report: %s)\n", out, rp)
+	m := design.FamilySource{Family: legendre}
+	req := design.Request{Points: 11, Digits: 30}
+	poor, err := design.Preset(ctx, m, req, "newton-cotes")
+	if err != nil {
+		return err
+	}
+	good, err := design.Gauss(ctx, m, req)
+	if err != nil {
+		return err
+	}
+	for _, c := range []struct {
+		file, title string
+		rule        *design.Rule
+	}{
+		{"audit-newton-cotes-11.html", "11-point closed Newton-Cotes rule (a poor choice)", poor},
+		{"audit-gauss-legendre-11.html", "11-point Gauss-Legendre rule (a good one)", good},
+	} {
+		rep, err := stability.Audit(ctx, m, c.rule.Nodes, c.rule.Weights, stability.Options{})
+		if err != nil {
+			return err
+		}
+		var page strings.Builder
+		if err := rep.WriteHTML(&page, c.title, cautionText); err != nil {
+			return err
+		}
+		if err := writeFileAtomic(filepath.Join(out, c.file), []byte(page.String())); err != nil {
+			return err
+		}
+		line := fmt.Sprintf("%-30s degree %2d, %d negative weights, stability factor %.4g, lost digits %.2f",
+			c.file, rep.Degree, rep.NegativeWeights, float64(rep.StabilityFactor), float64(rep.LostDigits))
+		fmt.Fprintln(w, "  "+line)
+		fmt.Fprintln(&summary, line)
+	}
+	summary.WriteString("\n" + cautionText)
+	sp := filepath.Join(out, "summary.txt")
+	if err := writeFileAtomic(sp, []byte(summary.String())); err != nil {
+		return err
+	}
+	fmt.Fprintf(w, "wrote the rule files, the audit pages and the summary to %s (open %s)\n", out, filepath.Join(out, "audit-newton-cotes-11.html"))
 	return nil
 }
 
