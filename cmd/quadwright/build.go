@@ -96,12 +96,13 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 	if req.Digits, req.Auto, err = parseDigits(o.digits); err != nil {
 		return err
 	}
-	m, fam, err := o.resolveMeasure()
+	quiet, _ := cmd.Flags().GetBool("quiet")
+	ctx, done := withProgress(ctx, quiet, n, "building")
+	defer done()
+	m, fam, err := o.resolveMeasure(ctx)
 	if err != nil {
 		return err
 	}
-	quiet, _ := cmd.Flags().GetBool("quiet")
-	ctx, done := withProgress(ctx, quiet, n, "building")
 	rule, err := o.makeRule(ctx, m, req)
 	done()
 	if err != nil {

@@ -47,8 +47,8 @@ func (o *buildOptions) measureFlags() measureFlags {
 // resolveMeasure turns the measure flags of build (exactly one of --family,
 // --weight, --moments, --measure) into the measure to build for. fam is
 // non-nil for a family (the rule file records its parameters).
-func (o *buildOptions) resolveMeasure() (design.Measure, *moments.Family, error) {
-	return o.measureFlags().resolve(context.Background())
+func (o *buildOptions) resolveMeasure(ctx context.Context) (design.Measure, *moments.Family, error) {
+	return o.measureFlags().resolve(ctx)
 }
 
 // resolve returns the measure the flags name; fam is non-nil for a family.
