@@ -9,18 +9,15 @@ import (
 	"github.com/spf13/cobra"
 
 	"quadwright/design"
-	"quadwright/moments"
 	"quadwright/precision"
 )
 
 // buildOptions holds the flags of `quadwright build` as typed.
 type buildOptions struct {
-	family, alpha, beta, interval string
-	weight, momentsFile, measure  string
-	points, kind, digits, format  string
-	fixed, nodesFile, breaks      string
-	basis                         string
-	output                        string
+	measure                      measureFlags
+	points, kind, digits, format string
+	fixed, nodesFile             string
+	output                       string
 }
 
 func newBuildCommand() *cobra.Command {
@@ -53,22 +50,14 @@ points = 12, interval = "0,1", ...); flags given beside it override it.`,
 			return runBuild(cmd.Context(), o, cmd)
 		},
 	}
+	addMeasureFlags(cmd, &o.measure)
 	f := cmd.Flags()
-	f.StringVar(&o.family, "family", "", "classical family: "+strings.Join(moments.FamilyNames, ", "))
-	f.StringVar(&o.alpha, "alpha", "", "family parameter alpha, exact decimal or p/q (jacobi: (1-x)^alpha, > -1, default 0; laguerre: x^alpha, > -1, default 0; gegenbauer: (1-x^2)^(alpha-1/2), > -1/2, required)")
-	f.StringVar(&o.beta, "beta", "", "Jacobi parameter beta, exact decimal or p/q: (1+x)^beta, > -1 (default 0)")
-	f.StringVar(&o.interval, "interval", "", "support A,B of the weight (inf, -inf allowed); a finite family is mapped affinely from [-1,1] onto it (default: the family's own interval)")
-	f.StringVar(&o.weight, "weight", "", "weight function of x, e.g. \"-log(x)\" (with --interval)")
-	f.StringVar(&o.momentsFile, "moments", "", "file of moments, one decimal or p/q per line, k = 0, 1, ... (raw; see --basis); 2N moments are needed for N points")
-	f.StringVar(&o.basis, "basis", "", basisHelp)
-	f.StringVar(&o.measure, "measure", "", "file of a discrete measure, one \"x mass\" pair per line; N at most the number of distinct points")
 	f.StringVar(&o.points, "points", "", fmt.Sprintf("number of nodes N, 1 to %d (required)", design.MaxPoints))
 	f.StringVar(&o.kind, "kind", "gauss", kindHelp)
 	f.StringVar(&o.digits, "digits", "", fmt.Sprintf("significant decimal digits, all correct, 1 to %d, or auto (%d for an exactly known measure); default: float64 mode, the nearest double to every value", precision.MaxDigits, design.AutoDigits))
 	f.StringVar(&o.format, "format", "text", "output format: text, json or csv")
 	f.StringVar(&o.fixed, "fixed", "", "prescribed nodes X,.. (decimal or p/q): radau one, default the left (or only finite) end; lobatto two, default both ends; gauss any number at or outside the ends of the support")
 	f.StringVar(&o.nodesFile, "nodes", "", "file of all the nodes, one decimal or p/q per line: the interpolatory weights for the measure are computed")
-	f.StringVar(&o.breaks, "breaks", "", "interior points X,Y,.. where the weight is not smooth (with --weight; optional)")
 	f.StringVarP(&o.output, "output", "o", "", "write the rule to this file (atomically) instead of standard output")
 	return cmd
 }

@@ -134,24 +134,35 @@ func TestBadInput(t *testing.T) {
 		{[]string{"build", "--family", "legendre", "--points", "4", "--bogus"}, "--bogus"},
 	}
 	for _, c := range cases {
-		dir := t.TempDir()
-		args := append(append([]string(nil), c.args...), "-o", "out.txt")
-		out, errs, code := run(t, dir, args...)
-		if code != 1 {
-			t.Errorf("%v: exit %d, want 1 (stderr %q)", c.args, code, errs)
-		}
-		if !strings.Contains(errs, c.want) {
-			t.Errorf("%v: stderr %q does not name %q", c.args, errs, c.want)
-		}
-		if strings.Count(strings.TrimSpace(errs), "\n") != 0 {
-			t.Errorf("%v: more than one line on stderr: %q", c.args, errs)
-		}
-		if out != "" {
-			t.Errorf("%v: stdout %q", c.args, out)
-		}
-		if entries, _ := os.ReadDir(dir); len(entries) != 0 {
-			t.Errorf("%v: files left behind: %v", c.args, entries)
-		}
+		expectInputError(t, t.TempDir(), c.args, c.want)
+	}
+}
+
+// expectInputError runs args (with -o out.txt) in dir and requires exit
+// status 1, one line on stderr naming want, nothing on stdout and no
+// out.txt left behind.
+func expectInputError(t *testing.T, dir string, argv []string, want string) {
+	t.Helper()
+	args := append(append([]string(nil), argv...), "-o", "out.txt")
+	out, errs, code := run(t, dir, args...)
+	if code != 1 {
+		t.Errorf("%v: exit %d, want 1 (stderr %q)", argv, code, errs)
+	}
+	if !strings.Contains(errs, want) {
+		t.Errorf("%v: stderr %q does not name %q", argv, errs, want)
+	}
+	if strings.Count(strings.TrimSpace(errs), "\n") != 0 {
+		t.Errorf("%v: more than one line on stderr: %q", argv, errs)
+	}
+	if out != "" {
+		t.Errorf("%v: stdout %q", argv, out)
+	}
+	if _, err := os.Stat(filepath.Join(dir, "out.txt")); err == nil {
+		t.Errorf("%v: output file left behind", argv)
+	}
+	matches, _ := filepath.Glob(filepath.Join(dir, ".out.txt.tmp-*"))
+	if len(matches) != 0 {
+		t.Errorf("%v: temporary files left behind: %v", argv, matches)
 	}
 }
 

@@ -21,28 +21,25 @@ type measureFlags struct {
 	momentsFile, basis, measure   string
 }
 
-// addMeasureFlags registers the measure flags (for the commands other than
-// build, whose flags predate this helper) on cmd.
+// addMeasureFlags registers the measure flags on cmd (build, audit,
+// moments, recurrence share them).
 func addMeasureFlags(cmd *cobra.Command, mf *measureFlags) {
 	f := cmd.Flags()
 	f.StringVar(&mf.family, "family", "", "classical family: "+strings.Join(moments.FamilyNames, ", "))
-	f.StringVar(&mf.alpha, "alpha", "", "family parameter alpha, exact decimal or p/q (see build --help)")
-	f.StringVar(&mf.beta, "beta", "", "Jacobi parameter beta, exact decimal or p/q (default 0)")
-	f.StringVar(&mf.interval, "interval", "", "support A,B of the weight (inf, -inf allowed); required with --weight")
+	f.StringVar(&mf.alpha, "alpha", "", "family parameter alpha, exact decimal or p/q (jacobi: (1-x)^alpha, > -1, default 0; laguerre: x^alpha, > -1, default 0; gegenbauer: (1-x^2)^(alpha-1/2), > -1/2, required)")
+	f.StringVar(&mf.beta, "beta", "", "Jacobi parameter beta, exact decimal or p/q: (1+x)^beta, > -1 (default 0)")
+	f.StringVar(&mf.interval, "interval", "", "support A,B of the weight (inf, -inf allowed): required with --weight; a finite family is mapped affinely from [-1,1] onto it (default: the family's own interval)")
 	f.StringVar(&mf.weight, "weight", "", "weight function of x, e.g. \"-log(x)\" (with --interval)")
 	f.StringVar(&mf.breaks, "breaks", "", "interior points X,Y,.. where the weight is not smooth (with --weight; optional)")
-	f.StringVar(&mf.momentsFile, "moments", "", "file of moments, one decimal or p/q per line, k = 0, 1, ... ('#' starts a comment)")
+	f.StringVar(&mf.momentsFile, "moments", "", "file of moments, one decimal or p/q per line, k = 0, 1, ... ('#' starts a comment; raw unless --basis); 2N moments are needed for N points")
 	f.StringVar(&mf.basis, "basis", "", basisHelp)
-	f.StringVar(&mf.measure, "measure", "", "file of a discrete measure, one \"x mass\" pair per line")
+	f.StringVar(&mf.measure, "measure", "", "file of a discrete measure, one \"x mass\" pair per line; N at most the number of distinct points")
 }
 
 const basisHelp = "basis of the --moments file: monomial (raw moments, default), legendre or chebyshev (need a finite --interval), laguerre ([A,inf), default [0,inf)), hermite ((-inf,inf))"
 
 // measureFlags returns build's measure flags.
-func (o *buildOptions) measureFlags() measureFlags {
-	return measureFlags{family: o.family, alpha: o.alpha, beta: o.beta, interval: o.interval,
-		weight: o.weight, breaks: o.breaks, momentsFile: o.momentsFile, basis: o.basis, measure: o.measure}
-}
+func (o *buildOptions) measureFlags() measureFlags { return o.measure }
 
 // resolveMeasure turns the measure flags of build (exactly one of --family,
 // --weight, --moments, --measure) into the measure to build for. fam is

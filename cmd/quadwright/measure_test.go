@@ -117,23 +117,7 @@ func TestMeasureInputErrors(t *testing.T) {
 		for name, content := range files {
 			writeFile(t, dir, name, content)
 		}
-		args := append(append([]string(nil), c.args...), "-o", "out.txt")
-		out, errs, code := run(t, dir, args...)
-		if code != 1 {
-			t.Errorf("%v: exit %d, want 1 (stderr %q)", c.args, code, errs)
-		}
-		if !strings.Contains(errs, c.want) {
-			t.Errorf("%v: stderr %q does not name %q", c.args, errs, c.want)
-		}
-		if strings.Count(strings.TrimSpace(errs), "\n") != 0 {
-			t.Errorf("%v: more than one line on stderr: %q", c.args, errs)
-		}
-		if out != "" {
-			t.Errorf("%v: stdout %q", c.args, out)
-		}
-		if _, err := os.Stat(filepath.Join(dir, "out.txt")); err == nil {
-			t.Errorf("%v: output file left behind", c.args)
-		}
+		expectInputError(t, dir, c.args, c.want)
 	}
 }
 
