@@ -45,11 +45,8 @@ func AntiGauss(ctx context.Context, m Measure, req Request) (*Rule, error) {
 	if err != nil {
 		return nil, err
 	}
-	iv := m.Domain()
-	for _, x := range s2.nodes {
-		if outside(x, iv) {
-			return nil, fmt.Errorf("the anti-Gauss rule paired with the %d-point Gauss rule has a node at %s, outside the support %s, where the weight is not defined; it is not printed", n, x.Text('g', 10), iv)
-		}
+	if x := firstOutside(s2.nodes, m.Domain()); x != nil {
+		return nil, fmt.Errorf("the anti-Gauss rule paired with the %d-point Gauss rule has a node at %s, outside the support %s, where the weight is not defined; it is not printed", n, x.Text('g', 10), m.Domain())
 	}
 	r := newRule("anti-gauss", m, s1, s2, texts, req.Digits, "Laurie's anti-Gauss Jacobi matrix (beta_N doubled), Newton refinement on its recurrence")
 	if err := verifyRule(ctx, src, r, 2*n-1, 2*n-1); err != nil {

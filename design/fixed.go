@@ -29,6 +29,17 @@ func outside(x *big.Float, iv moments.Interval) bool {
 	return iv.Hi.Finite() && x.Cmp(new(big.Float).SetPrec(x.Prec()+64).SetRat(iv.Hi.Value)) > 0
 }
 
+// firstOutside returns the first of nodes outside the closed interval iv,
+// or nil when every node lies in it.
+func firstOutside(nodes []*big.Float, iv moments.Interval) *big.Float {
+	for _, x := range nodes {
+		if outside(x, iv) {
+			return x
+		}
+	}
+	return nil
+}
+
 // monicPair returns pi_k(x) and pi_{k-1}(x) (pi_{-1} = 0) of rec, by the
 // forward recurrence at prec bits; rec must hold k pairs (k >= 0).
 func monicPair(rec *Recurrence, k int, x *big.Float, prec uint) (pk, pkm1 *big.Float) {

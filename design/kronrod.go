@@ -68,11 +68,8 @@ func Kronrod(ctx context.Context, m Measure, req Request) (*Rule, error) {
 	if err != nil {
 		return nil, err
 	}
-	iv := m.Domain()
-	for _, x := range s2.nodes {
-		if outside(x, iv) {
-			return nil, fmt.Errorf("the Kronrod extension of the %d-point Gauss rule of %s has a node at %s, outside the support %s; it is not printed", n, m.Label(), x.Text('g', 10), iv)
-		}
+	if x := firstOutside(s2.nodes, m.Domain()); x != nil {
+		return nil, fmt.Errorf("the Kronrod extension of the %d-point Gauss rule of %s has a node at %s, outside the support %s; it is not printed", n, m.Label(), x.Text('g', 10), m.Domain())
 	}
 	r := newRule("kronrod", m, s1, s2, texts, req.Digits, "Laurie's Jacobi-Kronrod matrix (trailing block by Lanczos from the Gauss nodes), Newton refinement on its recurrence")
 	if err := verifyRule(ctx, src, r, nominal, nominal+1); err != nil {

@@ -27,9 +27,11 @@ func newBuildCommand() *cobra.Command {
 		Short: "Build a verified one-dimensional quadrature rule",
 		Long: `Build the rule of a measure, verify it and print it.
 
-The measure is a classical family (--family, with --alpha/--beta where it has
-parameters, mapped affinely onto --interval for the finite families). The rule
-is computed twice at two working precisions; only digits on which both agree
+The measure is exactly one of: a classical family (--family, with --alpha and
+--beta where it has parameters, mapped affinely onto --interval for the finite
+families), a weight expression (--weight with --interval, optional --breaks),
+a moment list (--moments FILE, --basis) or a discrete measure (--measure FILE).
+The rule is computed twice at two working precisions; only digits on which both agree
 are printed, and the printed values are tested for exactness before they are
 written. A rule that cannot be verified is an error, not a result.
 
