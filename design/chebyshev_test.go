@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"math/big"
+	"runtime"
 	"testing"
 
 	"quadwright/moments"
@@ -210,5 +211,31 @@ func TestLanczosOnGaussRuleGivesItsRecurrence(t *testing.T) {
 	// 60 printed digits are about 199 bits; tuned margin of 16 bits.
 	if bits := agreeBits(got, ref, M); bits < 180 {
 		t.Errorf("Lanczos on the Gauss rule agrees with the Jacobi closed form to %d bits", bits)
+	}
+}
+
+func TestLanczosBandsDoNotChangeTheResult(t *testing.T) {
+	// The pipelined bands (one per core) must give the very bits of the
+	// single band, and agree with Stieltjes as the single band does.
+	ctx := context.Background()
+	const M, n, prec = 1200, 150, 192
+	x, c := uniformMeasure(M, prec)
+	old := runtime.GOMAXPROCS(1)
+	one, err := Lanczos(ctx, x, c, n, prec)
+	runtime.GOMAXPROCS(3)
+	three, err3 := Lanczos(ctx, x, c, n, prec)
+	runtime.GOMAXPROCS(old)
+	if err != nil || err3 != nil {
+		t.Fatal(err, err3)
+	}
+	for k := 0; k < n; k++ {
+		if one.Alpha[k].Cmp(three.Alpha[k]) != 0 || one.Beta[k].Cmp(three.Beta[k]) != 0 {
+			t.Fatalf("pair %d differs between one band and three", k)
+		}
+	}
+	st, _ := Stieltjes(ctx, x, c, n, prec)
+	// tuned: a few ulp times n at 192 bits; Stieltjes loses a little more.
+	if bits := agreeBits(three, st, n); bits < prec-40 {
+		t.Errorf("banded Lanczos and Stieltjes agree to %d bits only", bits)
 	}
 }

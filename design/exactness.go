@@ -57,18 +57,31 @@ func (e Exactness) WorstShare() float64 {
 // maxDeg pairs. The sums are formed at prec bits, which should exceed the
 // bits of tol by a margin (64 bits is ample).
 func CheckExactness(ctx context.Context, rec *Recurrence, nodes, weights []*big.Float, tol *big.Float, maxDeg int, prec uint) (Exactness, error) {
-	if len(nodes) != len(weights) {
-		panic("design: CheckExactness with mismatched nodes and weights")
-	}
 	if rec.Len() < maxDeg {
 		panic(fmt.Sprintf("design: CheckExactness to degree %d needs %d recurrence pairs, have %d", maxDeg, maxDeg, rec.Len()))
+	}
+	integrals := []*big.Float{rec.Beta[0]}
+	return checkInBasis(ctx, rec.Alpha[:maxDeg], rec.Beta[:maxDeg], integrals, nil, nodes, weights, tol, maxDeg, prec)
+}
+
+// checkInBasis is the test of CheckExactness in the basis of monic
+// polynomials q_0 = 1, q_{j+1} = (x - a_j) q_j - b_j q_{j-1} (a and b hold
+// at least maxDeg values): q_j counts as integrated when
+//
+//	|sum_i w_i q_j(x_i) - I_j| <= tol * sum_i |w_i| (|q_j(x_i)| + |x_i q_j'(x_i)|) + e_j,
+//
+// where I_j = integrals[j] (0 beyond the slice) and e_j = slack[j] (0 when
+// slack is nil or shorter), the error bound of a computed I_j.
+func checkInBasis(ctx context.Context, alpha, beta, integrals, slack []*big.Float, nodes, weights []*big.Float, tol *big.Float, maxDeg int, prec uint) (Exactness, error) {
+	if len(nodes) != len(weights) {
+		panic("design: CheckExactness with mismatched nodes and weights")
 	}
 	m := maxDeg + 1
 	a := precision.NewRealSlice(maxDeg+1, prec)
 	b := precision.NewRealSlice(maxDeg+1, prec)
 	for k := 0; k < maxDeg; k++ {
-		a[k].SetBig(rec.Alpha[k])
-		b[k].SetBig(rec.Beta[k])
+		a[k].SetBig(alpha[k])
+		b[k].SetBig(beta[k])
 	}
 	n := len(nodes)
 	workers := runtime.GOMAXPROCS(0)
@@ -104,8 +117,10 @@ func CheckExactness(ctx context.Context, rec *Recurrence, nodes, weights []*big.
 			B[j].Add(B[j], bounds[wk][j])
 		}
 	}
-	mass := precision.NewReal(prec).SetBig(rec.Beta[0])
-	S[0].Sub(S[0], mass)
+	integral := precision.NewReal(prec)
+	for j := 0; j < min(m, len(integrals)); j++ {
+		S[j].Sub(S[j], integral.SetBig(integrals[j]))
+	}
 	t := precision.NewReal(prec).SetBig(tol)
 	lim := precision.NewReal(prec)
 	res := Exactness{Degree: -1, Tested: maxDeg, Ratio: make([]*big.Float, m), Tol: new(big.Float).SetPrec(64).Set(tol)}
@@ -113,6 +128,9 @@ func CheckExactness(ctx context.Context, rec *Recurrence, nodes, weights []*big.
 	for j := 0; j < m; j++ {
 		S[j].Abs(S[j])
 		lim.Mul(t, B[j])
+		if j < len(slack) {
+			lim.Add(lim, integral.SetBig(slack[j]))
+		}
 		r := new(big.Float).SetPrec(64)
 		if !B[j].IsZero() {
 			q := precision.NewReal(prec).Quo(S[j], B[j])

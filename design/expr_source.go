@@ -2,9 +2,9 @@ package design
 
 import (
 	"context"
-	"errors"
 	"fmt"
 	"math/big"
+	"sync"
 
 	"quadwright/moments"
 )
@@ -39,6 +39,9 @@ type ExprSource struct {
 	Ctx context.Context
 
 	cache recurrenceCache
+
+	mu      sync.Mutex
+	nu, est []*big.Float // the modified moments of the last computation and their error bounds
 }
 
 // NewExprSource returns the source of w, with modified moments in
@@ -59,11 +62,13 @@ func (s *ExprSource) Weight() string { return s.W.Source }
 // Domain is the weight's interval.
 func (s *ExprSource) Domain() moments.Interval { return s.W.Interval }
 
-// routeSlack is how many bits below the precision asked the two routes may
-// differ. Gauss asks for 64 bits more than its first working precision,
-// which itself carries 32 + 2 log2(N) guard bits, so agreement to prec-32
-// bits still covers every printed digit with 64 bits to spare.
-const routeSlack = 32
+// routeSlack is how many bits below the precision asked the two routes must
+// agree. Gauss asks its sources for confirmPrec(p) = p + 64 bits, p its
+// first working precision (which carries 32 + 2 log2(N) guard bits beyond
+// the printed digits), so the pairs are confirmed to p bits: as accurate
+// as the first stage's own rounding of them, whose harmlessness the two
+// stages' agreement then shows.
+const routeSlack = 64
 
 // Recurrence returns pairs 0..n-1 at prec bits: the Lanczos route's pairs,
 // after checking that the modified-moment route agrees with them to
@@ -132,30 +137,29 @@ func (s *ExprSource) symmetrize(r, check *Recurrence, prec uint) {
 	}
 }
 
-// bothRoutes runs the two routes side by side (they are independent). A
-// failure of the modified-moment route that conditioning can explain (a
-// beta_k <= 0 or no convergence of its moment map) comes back as errA, for
-// the caller to judge; any other failure as err.
+// bothRoutes integrates the first 2n modified moments once (the
+// discretisation of the Lanczos route is the same quadrature's nodes, see
+// moments.Weight.Discretize) and then runs the two algorithms side by side.
+// A failure of the modified Chebyshev algorithm that conditioning can
+// explain (a beta_k <= 0 or no convergence of its moment map) comes back as
+// errA, for the caller to judge; any other failure as err.
 func (s *ExprSource) bothRoutes(ctx context.Context, n int, prec uint, digits int) (rA, rB *Recurrence, errA, err error) {
-	var errM error
+	nu, est, err := s.W.Moments(ctx, 2*n, s.Basis, digits)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	s.keepMoments(nu, est)
 	done := make(chan struct{})
 	go func() {
 		defer close(done)
-		rA, errM = s.modifiedMomentRoute(ctx, n, prec, digits)
+		rA, errA = s.chebyshevRoute(nu, n, prec)
 	}()
 	rB, err = s.lanczosRoute(ctx, n, prec, digits)
 	<-done
 	if err != nil {
 		return nil, nil, nil, err
 	}
-	var ce *conditioningError
-	if errors.As(errM, &ce) {
-		return nil, rB, errM, nil
-	}
-	if errM != nil {
-		return nil, nil, nil, errM
-	}
-	return rA, rB, nil, nil
+	return rA, rB, errA, nil
 }
 
 // conditioningError marks a failure of the moment map (as opposed to the
@@ -165,9 +169,11 @@ type conditioningError struct{ err error }
 func (e *conditioningError) Error() string { return e.err.Error() }
 func (e *conditioningError) Unwrap() error { return e.err }
 
-// digitsFor is the decimal accuracy asked of part A's integrators for a
-// result at prec bits: prec bits in digits, plus ten.
-func digitsFor(prec uint) int { return int(float64(prec)/3.321928094887362) + 10 }
+// digitsFor is the decimal accuracy asked of part A's integrators for pairs
+// confirmed to prec - routeSlack bits: those bits in digits, plus ten.
+func digitsFor(prec uint) int {
+	return int(float64(prec-min(prec, routeSlack))/3.321928094887362) + 10
+}
 
 // ModifiedMomentRoute computes pairs 0..n-1 from the first 2n modified
 // moments of the weight in s.Basis (computed to digitsFor(prec) digits)
@@ -176,14 +182,14 @@ func digitsFor(prec uint) int { return int(float64(prec)/3.321928094887362) + 10
 // is as accurate as the moments and the conditioning of the moment map
 // allow, which the caller judges.
 func (s *ExprSource) ModifiedMomentRoute(ctx context.Context, n int, prec uint) (*Recurrence, error) {
-	return s.modifiedMomentRoute(ctx, n, prec, digitsFor(prec))
-}
-
-func (s *ExprSource) modifiedMomentRoute(ctx context.Context, n int, prec uint, digits int) (*Recurrence, error) {
-	nu, _, err := s.W.Moments(ctx, 2*n, s.Basis, digits)
+	nu, _, err := s.W.Moments(ctx, 2*n, s.Basis, digitsFor(prec))
 	if err != nil {
 		return nil, err
 	}
+	return s.chebyshevRoute(nu, n, prec)
+}
+
+func (s *ExprSource) chebyshevRoute(nu []*big.Float, n int, prec uint) (*Recurrence, error) {
 	rec, err := chebyshevConverged(func(w uint) (x, a, b []*big.Float) {
 		a, b = basisPairs(s.Basis, 2*n-1, w)
 		return nu, a, b
@@ -195,8 +201,10 @@ func (s *ExprSource) modifiedMomentRoute(ctx context.Context, n int, prec uint, 
 }
 
 // LanczosRoute computes pairs 0..n-1 by Lanczos from a discretisation of
-// the weight exact to degree 2n-1 (to digitsFor(prec) digits), at prec + 64
-// bits, rounded to prec bits.
+// the weight exact to degree 2n-1 (to digitsFor(prec) digits), at prec
+// bits: the method is orthogonal, so its rounding errors stay a few ulp
+// times a modest multiple of n, far inside the routeSlack bits the check
+// allows.
 func (s *ExprSource) LanczosRoute(ctx context.Context, n int, prec uint) (*Recurrence, error) {
 	return s.lanczosRoute(ctx, n, prec, digitsFor(prec))
 }
@@ -209,11 +217,7 @@ func (s *ExprSource) lanczosRoute(ctx context.Context, n int, prec uint, digits 
 	if len(x) < n {
 		return nil, fmt.Errorf("%s: the discretisation has %d points, fewer than the %d pairs asked", s.W.Label(), len(x), n)
 	}
-	rec, err := Lanczos(ctx, x, c, n, prec+64)
-	if err != nil {
-		return nil, err
-	}
-	return roundRecurrence(rec, prec), nil
+	return Lanczos(ctx, x, c, n, prec)
 }
 
 // firstDisagreement returns the first pair index where r1 and r2 differ

@@ -126,29 +126,44 @@ func digitsLabel(d int) string {
 // largest number of significant digits among them (so exact short values
 // such as 1 or 0.5 do not lower it) and tol = 10 u.
 func VerifyPrinted(ctx context.Context, m RecurrenceSource, nodes, weights []string, maxDeg int) (Exactness, error) {
+	pv, err := readPrinted(nodes, weights)
+	if err != nil {
+		return Exactness{}, err
+	}
+	rec, err := m.Recurrence(maxDeg, pv.prec)
+	if err != nil {
+		return Exactness{}, err
+	}
+	return CheckExactness(ctx, rec, pv.nodes, pv.weights, pv.tol, maxDeg, pv.prec)
+}
+
+// printedRule is a printed rule read back exactly for an exactness test.
+type printedRule struct {
+	digits         int          // D, the largest number of significant digits among the values
+	prec           uint         // DigitsToBits(D) + 64, the precision of the test's sums
+	nodes, weights []*big.Float // the values at prec bits
+	tol            *big.Float   // 10 u, u = 10^(1-D)
+}
+
+// readPrinted reads printed nodes and weights as exact decimals, the
+// common start of VerifyPrinted and the Verifier implementations.
+func readPrinted(nodes, weights []string) (printedRule, error) {
 	D := 1
 	for _, s := range append(append([]string(nil), nodes...), weights...) {
 		num, err := precision.ParseNumber(s)
 		if err != nil {
-			return Exactness{}, err
+			return printedRule{}, err
 		}
-		if num.Digits > D {
-			D = num.Digits
-		}
+		D = max(D, num.Digits)
 	}
 	prec := precision.DigitsToBits(D) + 64
-	rec, err := m.Recurrence(maxDeg, prec)
-	if err != nil {
-		return Exactness{}, err
-	}
-	xs := make([]*big.Float, len(nodes))
-	ws := make([]*big.Float, len(nodes))
+	pv := printedRule{digits: D, prec: prec, nodes: make([]*big.Float, len(nodes)), weights: make([]*big.Float, len(nodes))}
 	for i := range nodes {
 		x, _ := precision.ParseExact(nodes[i])
 		w, _ := precision.ParseExact(weights[i])
-		xs[i] = new(big.Float).SetPrec(prec).SetRat(x)
-		ws[i] = new(big.Float).SetPrec(prec).SetRat(w)
+		pv.nodes[i] = new(big.Float).SetPrec(prec).SetRat(x)
+		pv.weights[i] = new(big.Float).SetPrec(prec).SetRat(w)
 	}
-	tol := new(big.Float).SetPrec(prec).SetRat(new(big.Rat).SetFrac(big.NewInt(10), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(D-1)), nil)))
-	return CheckExactness(ctx, rec, xs, ws, tol, maxDeg, prec)
+	pv.tol = new(big.Float).SetPrec(prec).SetRat(new(big.Rat).SetFrac(big.NewInt(10), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(D-1)), nil)))
+	return pv, nil
 }

@@ -4,6 +4,8 @@ import (
 	"context"
 	"fmt"
 	"math/big"
+	"runtime"
+	"sync"
 
 	"quadwright/precision"
 )
@@ -37,54 +39,142 @@ func Lanczos(ctx context.Context, x, c []*big.Float, n int, prec uint) (*Recurre
 		p0[l].SetBig(x[l])
 	}
 	p1[0].SetBig(c[0])
-	r := precision.NewRealSlice(9, prec)
-	pk, gam, sig, t, lam, rho, tmp, tsig, tk := r[0], r[1], r[2], r[3], r[4], r[5], r[6], r[7], r[8]
-	u, inv, one := precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec).SetInt64(1)
+	// The chase of point k passes row l before the chase of point k+1
+	// reaches it, so the rows can be cut into bands, one goroutine each,
+	// that pass the chase on like a bucket brigade: every row sees the same
+	// operations in the same order whatever the number of bands, and the
+	// result does not depend on the core count.
+	bands := min(runtime.GOMAXPROCS(0), rows/lanczosBandRows)
+	if M < 4*rows {
+		bands = 1
+	}
+	bands = max(bands, 1)
+	links := make([]chan *chaseState, bands+1)
+	for i := range links {
+		links[i] = make(chan *chaseState, lanczosPipeline)
+	}
+	free := make(chan *chaseState, lanczosPipeline+bands+1)
+	for i := 0; i < lanczosPipeline+bands+1; i++ {
+		free <- newChaseState(prec)
+	}
+	var wg sync.WaitGroup
+	for b := 0; b < bands; b++ {
+		lo, hi := b*rows/bands, (b+1)*rows/bands
+		wg.Add(1)
+		go func(in, out chan *chaseState, lo, hi int) {
+			defer wg.Done()
+			w := newChaseWork(prec)
+			for st := range in {
+				st.chase(w, p0, p1, lo, hi)
+				if st.k < hi || hi == rows {
+					free <- st // this chase ended in the band
+				} else {
+					out <- st
+				}
+			}
+			close(out)
+		}(links[b], links[b+1], lo, hi)
+	}
+	var err error
 	for k := 1; k < M; k++ {
 		if k%64 == 0 {
-			if err := ctx.Err(); err != nil {
-				return nil, err
+			if err = ctx.Err(); err != nil {
+				break
 			}
 		}
-		pk.SetBig(c[k])
-		gam.SetInt64(1)
-		sig.SetInt64(0)
-		t.SetInt64(0)
-		lam.SetBig(x[k])
-		top := min(k+1, rows)
-		for l := 0; l < top; l++ {
-			if l == k {
-				// The new point's own row starts as alpha = lambda.
-				p0[l].Set(lam)
-			}
-			rho.Add(p1[l], pk)
-			tmp.Mul(gam, rho)
-			tsig.Set(sig)
-			if rho.Sign() <= 0 {
-				gam.SetInt64(1)
-				sig.SetInt64(0)
-			} else {
-				inv.Quo(one, rho) // one division serves both ratios
-				gam.Mul(p1[l], inv)
-				sig.Mul(pk, inv)
-			}
-			u.Sub(p0[l], lam)
-			tk.Mul(sig, u)
-			u.Mul(gam, t)
-			tk.Sub(tk, u)
-			u.Sub(tk, t)
-			p0[l].Sub(p0[l], u)
-			t.Set(tk)
-			if sig.Sign() <= 0 {
-				pk.Mul(tsig, p1[l])
-			} else {
-				pk.Mul(t, t)
-				pk.Quo(pk, sig)
-			}
-			p1[l].Set(tmp)
-		}
+		st := <-free
+		st.k = k
+		st.pk.SetBig(c[k])
+		st.gam.SetInt64(1)
+		st.sig.SetInt64(0)
+		st.t.SetInt64(0)
+		st.lam.SetBig(x[k])
+		links[0] <- st
+	}
+	close(links[0])
+	wg.Wait()
+	if err != nil {
+		return nil, err
 	}
 	return realsToRecurrence(p0[:n], p1[:n], prec), nil
+}
+
+// lanczosBandRows is the fewest rows a band of the pipelined Lanczos gets,
+// and lanczosPipeline how many chases may wait between two bands.
+const (
+	lanczosBandRows = 48
+	lanczosPipeline = 8
+)
+
+// chaseState is the bulge of one point's chase down the rows: the point
+// k, its coordinate lam, and the rotation state pk, gam, sig, t.
+type chaseState struct {
+	k                    int
+	pk, gam, sig, t, lam *precision.Real
+}
+
+func newChaseState(prec uint) *chaseState {
+	r := precision.NewRealSlice(5, prec)
+	return &chaseState{pk: r[0], gam: r[1], sig: r[2], t: r[3], lam: r[4]}
+}
+
+// chaseWork is one band's scratch space.
+type chaseWork struct {
+	rho, tmp, tsig, tk, u, inv, rpk, one *precision.Real
+}
+
+func newChaseWork(prec uint) *chaseWork {
+	r := precision.NewRealSlice(8, prec)
+	return &chaseWork{rho: r[0], tmp: r[1], tsig: r[2], tk: r[3], u: r[4], inv: r[5], rpk: r[6], one: r[7].SetInt64(1)}
+}
+
+// chase carries st's point through rows lo..hi-1 (those below k+1).
+func (st *chaseState) chase(w *chaseWork, p0, p1 []*precision.Real, lo, hi int) {
+	pk, gam, sig, t, lam := st.pk, st.gam, st.sig, st.t, st.lam
+	rho, tmp, tsig, tk, u, inv, rpk, one := w.rho, w.tmp, w.tsig, w.tk, w.u, w.inv, w.rpk, w.one
+	for l := lo; l < min(hi, st.k+1); l++ {
+		if l == st.k {
+			// The new point's own row starts as alpha = lambda.
+			p0[l].Set(lam)
+		}
+		rho.Add(p1[l], pk)
+		tmp.Mul(gam, rho)
+		tsig.Set(sig)
+		switch {
+		case rho.Sign() <= 0:
+			gam.SetInt64(1)
+			sig.SetInt64(0)
+		case pk.Sign() <= 0:
+			inv.Quo(one, rho)
+			gam.Mul(p1[l], inv)
+			sig.SetInt64(0)
+		default:
+			// One division gives both 1/rho and 1/pk, the latter for
+			// pk' = t^2 / sig = t^2 rho / pk below: divisions cost about
+			// ten multiplications at these precisions.
+			inv.Mul(rho, pk)
+			inv.Quo(one, inv)
+			rpk.Mul(rho, inv)
+			inv.Mul(inv, pk)
+			gam.Mul(p1[l], inv)
+			sig.Mul(pk, inv)
+		}
+		u.Sub(p0[l], lam)
+		tk.Mul(sig, u)
+		u.Mul(gam, t)
+		tk.Sub(tk, u)
+		u.Sub(tk, t)
+		p0[l].Sub(p0[l], u)
+		t.Set(tk)
+		if sig.Sign() <= 0 {
+			pk.Mul(tsig, p1[l])
+		} else {
+			pk.Mul(t, t)
+			pk.Mul(pk, rho)
+			pk.Mul(pk, rpk)
+		}
+		p1[l].Set(tmp)
+	}
 }
 
 // Stieltjes returns the first n recurrence pairs of the discrete measure

@@ -308,3 +308,44 @@ func TestProductVerifierCatchesAWrongRule(t *testing.T) {
 		}
 	}
 }
+
+func TestExprVerifierCatchesAWrongRule(t *testing.T) {
+	// The expression source verifies against the weight's own modified
+	// moments, not against the recurrence the rule came from: the 8-point
+	// rule of -log(x) passes through degree 15, and with one weight or one
+	// node changed by a relative 1e-17 it must fail.
+	src := exprSource(t, "-log(x)", "0,1")
+	r, err := Gauss(context.Background(), src, Request{Points: 8, Digits: 30})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.Degree != 15 {
+		t.Fatalf("degree %d, want 15", r.Degree)
+	}
+	bump := func(s string) string {
+		v := rat(t, s)
+		v.Mul(v, new(big.Rat).SetFrac64(100000000000000000+1, 100000000000000000)) // relative 1e-17
+		return precision.FormatSig(new(big.Float).SetPrec(256).SetRat(v), 30)
+	}
+	for _, which := range []string{"weight", "node"} {
+		nodes := append([]string(nil), r.Nodes...)
+		weights := append([]string(nil), r.Weights...)
+		if which == "weight" {
+			weights[5] = bump(weights[5])
+		} else {
+			nodes[5] = bump(nodes[5])
+		}
+		ex, err := src.VerifyRule(context.Background(), nodes, weights, 15)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if ex.Degree >= 15 {
+			t.Errorf("a %s off by 1e-17 passed as degree %d", which, ex.Degree)
+		}
+	}
+	// Beyond the moments already integrated the verifier integrates more.
+	ex, err := src.VerifyRule(context.Background(), r.Nodes, r.Weights, 40)
+	if err != nil || ex.Degree != 15 || ex.Tested != 40 {
+		t.Errorf("tested to 40: degree %d of %d, error %v (want 15 of 40)", ex.Degree, ex.Tested, err)
+	}
+}
