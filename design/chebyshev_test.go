@@ -215,25 +215,29 @@ func TestLanczosOnGaussRuleGivesItsRecurrence(t *testing.T) {
 }
 
 func TestLanczosBandsDoNotChangeTheResult(t *testing.T) {
-	// The pipelined bands (one per core) must give the very bits of the
-	// single band, and agree with Stieltjes as the single band does.
+	// The pipelined bands of Lanczos and the parallel chunks of Stieltjes
+	// must give the very bits of a one-core run, and the two agree.
 	ctx := context.Background()
 	const M, n, prec = 1200, 150, 192
 	x, c := uniformMeasure(M, prec)
 	old := runtime.GOMAXPROCS(1)
 	one, err := Lanczos(ctx, x, c, n, prec)
+	st1, _ := Stieltjes(ctx, x, c, n, prec)
 	runtime.GOMAXPROCS(3)
 	three, err3 := Lanczos(ctx, x, c, n, prec)
+	st, _ := Stieltjes(ctx, x, c, n, prec)
 	runtime.GOMAXPROCS(old)
 	if err != nil || err3 != nil {
 		t.Fatal(err, err3)
 	}
 	for k := 0; k < n; k++ {
 		if one.Alpha[k].Cmp(three.Alpha[k]) != 0 || one.Beta[k].Cmp(three.Beta[k]) != 0 {
-			t.Fatalf("pair %d differs between one band and three", k)
+			t.Fatalf("Lanczos pair %d differs between one band and three", k)
+		}
+		if st1.Alpha[k].Cmp(st.Alpha[k]) != 0 || st1.Beta[k].Cmp(st.Beta[k]) != 0 {
+			t.Fatalf("Stieltjes pair %d differs between one core and three", k)
 		}
 	}
-	st, _ := Stieltjes(ctx, x, c, n, prec)
 	// tuned: a few ulp times n at 192 bits; Stieltjes loses a little more.
 	if bits := agreeBits(three, st, n); bits < prec-40 {
 		t.Errorf("banded Lanczos and Stieltjes agree to %d bits only", bits)

@@ -18,10 +18,13 @@ import (
 //     integrated by part A's double-exponential quadrature, then the
 //     modified Chebyshev algorithm (ModifiedChebyshev);
 //   - a discretisation of the weight (a positive discrete measure exact for
-//     polynomials of the degree needed), then the Lanczos method (Lanczos).
+//     polynomials of the degree needed), then the discretised Stieltjes
+//     procedure (Stieltjes, cheap and parallel), or, when that does not
+//     agree with the first route, the Lanczos method (Lanczos, slower but
+//     orthogonal and so never the one that lost accuracy).
 //
 // One route integrates moments and runs a moment map, the other builds a
-// discrete measure and runs orthogonal transformations (in the present
+// discrete measure and runs the polynomials on it (in the present
 // integrator both rest on the same double-exponential sums, so the check
 // guards the algorithms and their conditioning; the quadrature's own
 // accuracy rests on its level-to-level error estimate). Disagreement
@@ -94,35 +97,47 @@ func (s *ExprSource) compute(n int, prec uint) (*Recurrence, error) {
 	// for a Gaussian decay) the moment map amplifies them until the route
 	// fails or disagrees.
 	digits := digitsFor(prec)
+	bits := prec - routeSlack
 	var prevB *Recurrence
 	var why string
 	for attempt := 0; attempt < maxRouteAttempts; attempt++ {
-		rA, rB, errA, err := s.bothRoutes(ctx, n, prec, digits)
+		rA, rS, errA, err := s.bothRoutes(ctx, n, prec, digits)
+		if err != nil {
+			return nil, err
+		}
+		if errA == nil && pairsAgree(rA, rS, bits) {
+			s.symmetrize(rS, rA, prec)
+			return rS, nil
+		}
+		// Stieltjes can lose accuracy where Lanczos, an orthogonal
+		// method, does not: the discretisation's own recurrence is then
+		// taken from Lanczos.
+		rB, err := s.lanczosRoute(ctx, n, prec, digits)
 		if err != nil {
 			return nil, err
 		}
 		switch {
 		case errA != nil:
 			why = errA.Error()
-		case pairsAgree(rA, rB, prec-routeSlack):
+		case pairsAgree(rA, rB, bits):
 			s.symmetrize(rB, rA, prec)
 			return rB, nil
 		default:
-			why = fmt.Sprintf("the two routes disagree at pair %d", firstDisagreement(rA, rB, prec-routeSlack))
+			why = fmt.Sprintf("the two routes disagree at pair %d", firstDisagreement(rA, rB, bits))
 		}
 		// The moment map may be too ill conditioned for the modified
 		// moments to fix the pairs: then the check is between two
 		// discretisations, at this accuracy and the previous one
 		// (different levels and pieces of the quadrature), which must
 		// agree.
-		if prevB != nil && pairsAgree(prevB, rB, prec-routeSlack) {
+		if prevB != nil && pairsAgree(prevB, rB, bits) {
 			s.symmetrize(rB, prevB, prec)
 			return rB, nil
 		}
 		prevB = rB
 		digits *= 2
 	}
-	return nil, fmt.Errorf("%s: the recurrence could not be confirmed to %d bits even with %d-digit integrals (%s, and successive discretisations disagree); no rule is built on it", s.W.Label(), prec-routeSlack, digits/2, why)
+	return nil, fmt.Errorf("%s: the recurrence could not be confirmed to %d bits even with %d-digit integrals (%s, and successive discretisations disagree); no rule is built on it", s.W.Label(), bits, digits/2, why)
 }
 
 // maxRouteAttempts bounds how often ExprSource doubles the digits asked of
@@ -138,28 +153,34 @@ func (s *ExprSource) symmetrize(r, check *Recurrence, prec uint) {
 }
 
 // bothRoutes integrates the first 2n modified moments once (the
-// discretisation of the Lanczos route is the same quadrature's nodes, see
-// moments.Weight.Discretize) and then runs the two algorithms side by side.
-// A failure of the modified Chebyshev algorithm that conditioning can
-// explain (a beta_k <= 0 or no convergence of its moment map) comes back as
-// errA, for the caller to judge; any other failure as err.
-func (s *ExprSource) bothRoutes(ctx context.Context, n int, prec uint, digits int) (rA, rB *Recurrence, errA, err error) {
+// discretisation of the second route is the same quadrature's nodes, see
+// moments.Weight.Discretize) and then runs the modified Chebyshev algorithm
+// on the moments and the discretised Stieltjes procedure on the
+// discretisation side by side. A failure of the modified Chebyshev
+// algorithm that conditioning can explain (a beta_k <= 0 or no convergence
+// of its moment map) comes back as errA, for the caller to judge; any other
+// failure as err.
+func (s *ExprSource) bothRoutes(ctx context.Context, n int, prec uint, digits int) (rA, rS *Recurrence, errA, err error) {
 	nu, est, err := s.W.Moments(ctx, 2*n, s.Basis, digits)
 	if err != nil {
 		return nil, nil, nil, err
 	}
 	s.keepMoments(nu, est)
+	x, c, err := s.discretize(ctx, n, digits)
+	if err != nil {
+		return nil, nil, nil, err
+	}
 	done := make(chan struct{})
 	go func() {
 		defer close(done)
 		rA, errA = s.chebyshevRoute(nu, n, prec)
 	}()
-	rB, err = s.lanczosRoute(ctx, n, prec, digits)
+	rS, err = Stieltjes(ctx, x, c, n, prec)
 	<-done
 	if err != nil {
 		return nil, nil, nil, err
 	}
-	return rA, rB, errA, nil
+	return rA, rS, errA, nil
 }
 
 // conditioningError marks a failure of the moment map (as opposed to the
@@ -210,14 +231,24 @@ func (s *ExprSource) LanczosRoute(ctx context.Context, n int, prec uint) (*Recur
 }
 
 func (s *ExprSource) lanczosRoute(ctx context.Context, n int, prec uint, digits int) (*Recurrence, error) {
-	x, c, err := s.W.Discretize(ctx, 2*n-1, digits)
+	x, c, err := s.discretize(ctx, n, digits)
 	if err != nil {
 		return nil, err
 	}
-	if len(x) < n {
-		return nil, fmt.Errorf("%s: the discretisation has %d points, fewer than the %d pairs asked", s.W.Label(), len(x), n)
-	}
 	return Lanczos(ctx, x, c, n, prec)
+}
+
+// discretize returns the discrete measure of the weight exact to degree
+// 2n-1 (to digits digits), with at least n points.
+func (s *ExprSource) discretize(ctx context.Context, n int, digits int) (x, c []*big.Float, err error) {
+	x, c, err = s.W.Discretize(ctx, 2*n-1, digits)
+	if err != nil {
+		return nil, nil, err
+	}
+	if len(x) < n {
+		return nil, nil, fmt.Errorf("%s: the discretisation has %d points, fewer than the %d pairs asked", s.W.Label(), len(x), n)
+	}
+	return x, c, nil
 }
 
 // firstDisagreement returns the first pair index where r1 and r2 differ

@@ -197,30 +197,33 @@ func Stieltjes(ctx context.Context, x, c []*big.Float, n int, prec uint) (*Recur
 	if len(c) != M || n < 1 || n > M {
 		panic(fmt.Sprintf("design: Stieltjes(%d) with %d points and %d masses", n, M, len(c)))
 	}
-	xs := precision.NewRealSlice(M, prec)
-	cs := precision.NewRealSlice(M, prec)
-	prev := precision.NewRealSlice(M, prec) // pi_{k-1}
-	cur := precision.NewRealSlice(M, prec)  // pi_k
-	for i := 0; i < M; i++ {
-		xs[i].SetBig(x[i])
-		cs[i].SetBig(c[i])
-		cur[i].SetInt64(1)
+	// The points are cut into a fixed number of chunks, whatever the
+	// number of cores, and the chunks' partial sums are added in a fixed
+	// order, so that the result never depends on scheduling.
+	chunks := min(stieltjesChunks, max(1, M/256))
+	parts := make([]*stieltjesChunk, chunks)
+	for j := range parts {
+		lo, hi := j*M/chunks, (j+1)*M/chunks
+		parts[j] = newStieltjesChunk(x[lo:hi], c[lo:hi], prec)
 	}
 	al := precision.NewRealSlice(n, prec)
 	be := precision.NewRealSlice(n, prec)
 	norm, mom, oldNorm := precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec)
-	q, t, u := precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec)
+	workers := min(runtime.GOMAXPROCS(0), chunks)
 	for k := 0; k < n; k++ {
 		if err := ctx.Err(); err != nil {
 			return nil, err
 		}
+		var a, b *precision.Real // the pair of step k-1, nil at k = 0
+		if k > 0 {
+			a, b = al[k-1], be[k-1]
+		}
+		runChunks(workers, chunks, func(j int) { parts[j].step(k, a, b) })
 		norm.SetInt64(0)
 		mom.SetInt64(0)
-		for i := 0; i < M; i++ {
-			q.Mul(cur[i], cur[i])
-			q.Mul(q, cs[i])
-			norm.Add(norm, q)
-			mom.MulAdd(q, xs[i], mom)
+		for _, p := range parts {
+			norm.Add(norm, p.norm)
+			mom.Add(mom, p.mom)
 		}
 		if norm.Sign() <= 0 {
 			return nil, fmt.Errorf("the discrete measure has fewer than %d support points of positive mass", k+1)
@@ -232,18 +235,75 @@ func Stieltjes(ctx context.Context, x, c []*big.Float, n int, prec uint) (*Recur
 			be[k].Quo(norm, oldNorm)
 		}
 		oldNorm.Set(norm)
-		if k+1 == n {
-			break
-		}
-		for i := 0; i < M; i++ {
-			t.Sub(xs[i], al[k])
-			u.Mul(be[k], prev[i])
-			if k == 0 {
-				u.SetInt64(0)
-			}
-			prev[i].MulSub(t, cur[i], u)
-			prev[i], cur[i] = cur[i], prev[i]
-		}
 	}
 	return realsToRecurrence(al, be, prec), nil
+}
+
+// stieltjesChunks is the number of chunks Stieltjes cuts the points into.
+const stieltjesChunks = 16
+
+// runChunks calls f(0..chunks-1) on workers goroutines.
+func runChunks(workers, chunks int, f func(j int)) {
+	if workers <= 1 {
+		for j := 0; j < chunks; j++ {
+			f(j)
+		}
+		return
+	}
+	var wg sync.WaitGroup
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func(w int) {
+			defer wg.Done()
+			for j := w; j < chunks; j += workers {
+				f(j)
+			}
+		}(w)
+	}
+	wg.Wait()
+}
+
+// stieltjesChunk holds a chunk of points with pi_{k-1} and pi_k at each,
+// and the chunk's sums of c pi_k^2 and c pi_k^2 x.
+type stieltjesChunk struct {
+	xs, cs, prev, cur []*precision.Real
+	norm, mom, q, t   *precision.Real
+}
+
+func newStieltjesChunk(x, c []*big.Float, prec uint) *stieltjesChunk {
+	m := len(x)
+	ch := &stieltjesChunk{xs: precision.NewRealSlice(m, prec), cs: precision.NewRealSlice(m, prec),
+		prev: precision.NewRealSlice(m, prec), cur: precision.NewRealSlice(m, prec)}
+	for i := 0; i < m; i++ {
+		ch.xs[i].SetBig(x[i])
+		ch.cs[i].SetBig(c[i])
+		ch.cur[i].SetInt64(1)
+	}
+	r := precision.NewRealSlice(4, prec)
+	ch.norm, ch.mom, ch.q, ch.t = r[0], r[1], r[2], r[3]
+	return ch
+}
+
+// step sums c pi_k^2 and c pi_k^2 x over the chunk; for k > 0 it first
+// forms pi_k = (x - a) pi_{k-1} - b pi_{k-2} from the pair (a, b) of step
+// k-1 (b unused at k = 1).
+func (ch *stieltjesChunk) step(k int, a, b *precision.Real) {
+	ch.norm.SetInt64(0)
+	ch.mom.SetInt64(0)
+	for i := range ch.xs {
+		if k > 0 {
+			ch.t.Sub(ch.xs[i], a)
+			if k == 1 {
+				ch.q.SetInt64(0)
+			} else {
+				ch.q.Mul(b, ch.prev[i])
+			}
+			ch.prev[i].MulSub(ch.t, ch.cur[i], ch.q)
+			ch.prev[i], ch.cur[i] = ch.cur[i], ch.prev[i]
+		}
+		ch.q.Mul(ch.cur[i], ch.cur[i])
+		ch.q.Mul(ch.q, ch.cs[i])
+		ch.norm.Add(ch.norm, ch.q)
+		ch.mom.MulAdd(ch.q, ch.xs[i], ch.mom)
+	}
 }

@@ -279,6 +279,8 @@ func (z *Real) Mul(x, y *Real) *Real {
 		sh = mul3((*[3]uint64)(z.mant), (*[3]uint64)(x.mant), (*[3]uint64)(y.mant))
 	case 4:
 		sh = mul4((*[4]uint64)(z.mant), (*[4]uint64)(x.mant), (*[4]uint64)(y.mant))
+	case 5:
+		sh = mul5((*[5]uint64)(z.mant), (*[5]uint64)(x.mant), (*[5]uint64)(y.mant))
 	default:
 		sh = mulLarge(z.mant, x.mant, y.mant)
 	}
@@ -733,7 +735,7 @@ func mac(r0, r1, r2, a, b uint64) (uint64, uint64, uint64) {
 	return r0, r1, r2 + c
 }
 
-// mul2, mul3 and mul4 are mulTop for W = 2, 3, 4, accumulating the
+// mul2, mul3, mul4 and mul5 are mulTop for W = 2, 3, 4, 5, accumulating the
 // product column by column (for W = 2 the full product).
 func mul2(z, x, y *[2]uint64) bool {
 	x0, x1, y0, y1 := x[0], x[1], y[0], y[1]
@@ -802,5 +804,45 @@ func mul4(z, x, y *[4]uint64) bool {
 		return false
 	}
 	z[0], z[1], z[2], z[3] = p4<<1|p3>>63, p5<<1|p4>>63, p6<<1|p5>>63, p7<<1|p6>>63
+	return true
+}
+
+// mul5 serves 257 to 320 bits, the precision of double-exponential moment
+// sums for rules of about 30 digits.
+func mul5(z, x, y *[5]uint64) bool {
+	x0, x1, x2, x3, x4 := x[0], x[1], x[2], x[3], x[4]
+	y0, y1, y2, y3, y4 := y[0], y[1], y[2], y[3], y[4]
+	// Columns 3..9 (W-2 = 3): columns 0..2 are dropped, see mulTop.
+	r0, r1, r2 := mac(0, 0, 0, x0, y3)
+	r0, r1, r2 = mac(r0, r1, r2, x1, y2)
+	r0, r1, r2 = mac(r0, r1, r2, x2, y1)
+	r0, r1, r2 = mac(r0, r1, r2, x3, y0)
+	r0, r1, r2 = mac(r1, r2, 0, x0, y4)
+	r0, r1, r2 = mac(r0, r1, r2, x1, y3)
+	r0, r1, r2 = mac(r0, r1, r2, x2, y2)
+	r0, r1, r2 = mac(r0, r1, r2, x3, y1)
+	r0, r1, r2 = mac(r0, r1, r2, x4, y0)
+	p4 := r0
+	r0, r1, r2 = mac(r1, r2, 0, x1, y4)
+	r0, r1, r2 = mac(r0, r1, r2, x2, y3)
+	r0, r1, r2 = mac(r0, r1, r2, x3, y2)
+	r0, r1, r2 = mac(r0, r1, r2, x4, y1)
+	p5 := r0
+	r0, r1, r2 = mac(r1, r2, 0, x2, y4)
+	r0, r1, r2 = mac(r0, r1, r2, x3, y3)
+	r0, r1, r2 = mac(r0, r1, r2, x4, y2)
+	p6 := r0
+	r0, r1, r2 = mac(r1, r2, 0, x3, y4)
+	r0, r1, r2 = mac(r0, r1, r2, x4, y3)
+	p7 := r0
+	p8, p9, _ := mac(r1, r2, 0, x4, y4)
+	if p4|1<<63 >= 1<<64-5 {
+		return mulExact(z[:], x[:], y[:])
+	}
+	if p9 >= 1<<63 {
+		z[0], z[1], z[2], z[3], z[4] = p5, p6, p7, p8, p9
+		return false
+	}
+	z[0], z[1], z[2], z[3], z[4] = p5<<1|p4>>63, p6<<1|p5>>63, p7<<1|p6>>63, p8<<1|p7>>63, p9<<1|p8>>63
 	return true
 }

@@ -15,7 +15,7 @@ import (
 // big.Float's result at the same precision in mode ToZero, and results must
 // agree bit for bit.
 
-var realTestWords = []int{1, 2, 3, 4, 7, 54}
+var realTestWords = []int{1, 2, 3, 4, 5, 7, 54}
 
 // checkReal fails if x breaks the representation invariants.
 func checkReal(t *testing.T, x *Real) {
@@ -618,7 +618,7 @@ func benchOperands(prec uint) (x, y, a *Real) {
 	return mk(0, false), mk(-1, true), mk(0, false)
 }
 
-var benchPrecs = []uint{128, 192, 256, 1024, 3456}
+var benchPrecs = []uint{128, 192, 256, 320, 1024, 3456}
 
 func benchReal(b *testing.B, f func(z, x, y, a *Real)) {
 	for _, prec := range benchPrecs {
