@@ -118,7 +118,7 @@ func newDeList(prec uint, level int, neg bool) *deList {
 			first.SetInt64(0)
 		}
 	}
-	return &deList{et: expBig(first, w), step: expBig(stride, w)}
+	return &deList{et: precision.ExpTo(first, w), step: precision.ExpTo(stride, w)}
 }
 
 // makeDeNode forms the node at |t| with e^|t| = et; neg selects t < 0
@@ -142,7 +142,7 @@ func makeDeNode(kind deKind, prec uint, et *big.Float, neg bool) deNode {
 	case tanhSinh:
 		m2u := new(big.Float).SetPrec(w).Abs(u)
 		m2u.SetMantExp(m2u, 1)
-		e := expBig(m2u.Neg(m2u), w)
+		e := precision.ExpTo(m2u.Neg(m2u), w)
 		onePlus := new(big.Float).SetPrec(w).Add(one, e)
 		d = new(big.Float).SetPrec(w).Quo(e, onePlus)
 		wt = new(big.Float).SetPrec(w).Quo(d, onePlus)
@@ -150,11 +150,11 @@ func makeDeNode(kind deKind, prec uint, et *big.Float, neg bool) deNode {
 		wt.Mul(wt, hp)
 		wt.SetMantExp(wt, 1)
 	case expSinhR, expSinhL:
-		d = expBig(u, w)
+		d = precision.ExpTo(u, w)
 		wt = new(big.Float).SetPrec(w).Mul(hp, cosh)
 		wt.Mul(wt, d)
 	case sinhSinh:
-		eu := expBig(u, w)
+		eu := precision.ExpTo(u, w)
 		iu := new(big.Float).SetPrec(w).Quo(one, eu)
 		d = new(big.Float).SetPrec(w).Sub(eu, iu)
 		d.SetMantExp(d, -1)

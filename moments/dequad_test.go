@@ -8,56 +8,6 @@ import (
 	"quadwright/precision"
 )
 
-// ulps returns |got - want| in units of the last place of got.
-func ulps(got, want *big.Float) float64 {
-	d := new(big.Float).SetPrec(2*got.Prec()).Sub(got, want)
-	if d.Sign() == 0 {
-		return 0
-	}
-	ulp := new(big.Float).SetMantExp(big.NewFloat(1), want.MantExp(nil)-int(got.Prec()))
-	f, _ := new(big.Float).Quo(d.Abs(d), ulp).Float64()
-	return f
-}
-
-// expBig, logBig and powBig against package precision at 128 more bits
-// (the reference; its functions are tested against mpmath in
-// testdata/precision), within 1 ulp as documented.
-func TestElementary(t *testing.T) {
-	args := []string{"0.3711", "-0.3711", "1e-30", "-7.5", "123.456", "1e6", "-1e6", "0.999999999999", "1.0000000000001", "3e-200", "5e200"}
-	for _, prec := range []uint{53, 64, 192, 640, 1200} {
-		for _, s := range args {
-			x := new(big.Float).SetPrec(prec)
-			x.SetRat(rat(s))
-			ref := precision.Exp(new(big.Float).SetPrec(prec + 128).Set(x))
-			if got := expBig(x, prec); ref.IsInf() {
-				if !got.IsInf() {
-					t.Errorf("expBig(%s) = %v, want +Inf", s, got)
-				}
-			} else if u := ulps(got, ref); u > 1 {
-				t.Errorf("expBig(%s) at %d bits: %.3g ulp off", s, prec, u)
-			}
-			if x.Sign() <= 0 {
-				continue
-			}
-			ref = precision.Log(new(big.Float).SetPrec(prec + 128).Set(x))
-			if u := ulps(logBig(x, prec), ref); u > 1 {
-				t.Errorf("logBig(%s) at %d bits: %.3g ulp off", s, prec, u)
-			}
-			y := new(big.Float).SetPrec(prec).SetRat(rat("-0.9"))
-			ref = precision.Pow(new(big.Float).SetPrec(prec+128).Set(x), new(big.Float).SetPrec(prec+128).Set(y))
-			if u := ulps(powBig(x, y, prec), ref); u > 1 {
-				t.Errorf("powBig(%s, -0.9) at %d bits: %.3g ulp off", s, prec, u)
-			}
-		}
-	}
-	// log(1 - 2^-500), given with the bits of the distance, is -2^-500 - ...
-	x := new(big.Float).SetPrec(600).Sub(big.NewFloat(1), new(big.Float).SetMantExp(big.NewFloat(1), -500))
-	ref := precision.Log(new(big.Float).SetPrec(800).Set(x))
-	if u := ulps(logBig(x, 128), ref); u > 1 {
-		t.Errorf("logBig(1-2^-500): %.3g ulp off", u)
-	}
-}
-
 // Strong end singularities at both ends of [0, 1] and at the nonzero end
 // -1: the integral of x^(k-0.9) (1-x)^-0.9 is B(k+0.1, 0.1) (Abramowitz and
 // Stegun 6.2.2), and that of (1+x)^-0.9 x^k over [-1, 1] is, with s = 1+x,

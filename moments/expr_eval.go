@@ -281,12 +281,12 @@ func (ev *bigEval) pow(n *node, a, b *big.Float) (*big.Float, error) {
 		}
 		return ev.newf(), nil
 	case 1:
-		return ev.finite(n, powBig(a, b, ev.prec))
+		return ev.finite(n, precision.PowTo(a, b, ev.prec))
 	}
 	if !b.IsInt() {
 		return nil, ev.fail(n, "a power of a negative number with an exponent that is not an integer")
 	}
-	r := powBig(new(big.Float).Neg(a), b, ev.prec)
+	r := precision.PowTo(new(big.Float).Neg(a), b, ev.prec)
 	if r.IsInf() {
 		return nil, ev.fail(n, "the value overflows")
 	}
@@ -330,12 +330,12 @@ func (ev *bigEval) call(n *node, a *big.Float) (*big.Float, error) {
 	}
 	switch n.fn {
 	case "exp":
-		return ev.finite(n, expBig(a, prec))
+		return ev.finite(n, precision.ExpTo(a, prec))
 	case "log":
 		if a.Sign() <= 0 {
 			return nil, ev.fail(n, "log of a number <= 0")
 		}
-		return logBig(a, prec), nil
+		return precision.LogTo(a, prec), nil
 	case "sqrt":
 		if a.Sign() < 0 {
 			return nil, ev.fail(n, "square root of a negative number")
@@ -360,7 +360,7 @@ func (ev *bigEval) call(n *node, a *big.Float) (*big.Float, error) {
 	case "sinh", "tanh":
 		return ev.sinhTanh(n, a)
 	case "cosh":
-		ea := expBig(new(big.Float).SetPrec(prec+8).Abs(a), prec+8)
+		ea := precision.ExpTo(new(big.Float).SetPrec(prec+8).Abs(a), prec+8)
 		if ea.IsInf() {
 			return nil, ev.fail(n, "the value overflows")
 		}
@@ -392,7 +392,7 @@ func (ev *bigEval) sinhTanh(n *node, a *big.Float) (*big.Float, error) {
 	abs := new(big.Float).SetPrec(w).Abs(a)
 	var r *big.Float
 	if n.fn == "sinh" {
-		ea := expBig(abs, w)
+		ea := precision.ExpTo(abs, w)
 		if ea.IsInf() {
 			return nil, ev.fail(n, "the value overflows")
 		}
@@ -400,7 +400,7 @@ func (ev *bigEval) sinhTanh(n *node, a *big.Float) (*big.Float, error) {
 		r.Sub(ea, r)
 		r.Quo(r, big.NewFloat(2))
 	} else {
-		t := expBig(abs.Mul(abs, big.NewFloat(-2)), w)
+		t := precision.ExpTo(abs.Mul(abs, big.NewFloat(-2)), w)
 		one := big.NewFloat(1)
 		num := new(big.Float).SetPrec(w).Sub(one, t)
 		r = num.Quo(num, new(big.Float).SetPrec(w).Add(one, t))

@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 	"math/big"
+	"math/bits"
 	"runtime"
 	"sort"
 	"sync"
@@ -181,7 +182,7 @@ func (w *Weight) integrateShared(ctx context.Context, n int, basis Basis, digits
 
 func (w *Weight) integrate(ctx context.Context, n int, basis Basis, digits int, prec uint, keep bool) (*deResult, error) {
 	p := &deProblem{w: w, nk: n, digits: digits, prec: prec, nprec: prec + 64, tol: xfPow10(digits), keep: keep, maxGap: maxEndGap}
-	p.maxLevel = min(14, max(6, bitLen(n)+3))
+	p.maxLevel = min(14, max(6, bits.Len(uint(n))+3))
 	p.a = precision.NewRealSlice(n, prec)
 	p.b = precision.NewRealSlice(n, prec)
 	p.aConst, p.bZero = true, true

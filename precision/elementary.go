@@ -65,14 +65,15 @@ func bigfloatCall(fn int, w uint, f func() *big.Float) *big.Float {
 	return r
 }
 
-// Exp returns e^x rounded to x.Prec() bits, within 1 ulp. The argument is
-// reduced exactly as x = k ln 2 + r, |r| <= ln(2)/2, with ln 2 carrying
-// enough extra bits for |k|, and e^r is computed by bigfloat.Exp at
-// guardBits extra bits. If x >= 1.48e9 the result is +Inf and if
-// x <= -1.48e9 it is 0 (beyond big.Float's exponent range); Exp(±Inf) is
-// +Inf or 0.
-func Exp(x *big.Float) *big.Float {
-	p := resultPrec(x)
+// Exp returns e^x rounded to x.Prec() bits, within 1 ulp (ExpTo at that
+// precision). If x >= 1.48e9 the result is +Inf and if x <= -1.48e9 it is 0
+// (beyond big.Float's exponent range); Exp(±Inf) is +Inf or 0.
+func Exp(x *big.Float) *big.Float { return ExpTo(x, resultPrec(x)) }
+
+// expBigfloat is ExpTo by bigfloat: the argument is reduced exactly as
+// x = k ln 2 + r, |r| <= ln(2)/2, with ln 2 carrying enough extra bits for
+// |k|, and e^r is computed by bigfloat.Exp at guardBits extra bits.
+func expBigfloat(x *big.Float, p uint) *big.Float {
 	z := new(big.Float).SetPrec(p)
 	if x.Sign() == 0 {
 		return z.SetInt64(1)
@@ -91,7 +92,7 @@ func Exp(x *big.Float) *big.Float {
 		wl := w + 40
 		kl := new(big.Float).SetPrec(wl).SetInt64(k)
 		kl.Mul(kl, Ln2(wl))
-		r.SetPrec(wl).Sub(r, kl)
+		r.SetPrec(wl).Sub(new(big.Float).SetPrec(wl).Set(x), kl)
 		r.SetPrec(w)
 	}
 	e := bigfloatCall(bfExp, w, func() *big.Float { return bigfloat.Exp(r) })
@@ -100,21 +101,26 @@ func Exp(x *big.Float) *big.Float {
 }
 
 // Log returns the natural logarithm of x rounded to x.Prec() bits, within
-// 1 ulp, computed by bigfloat.Log (the arithmetic-geometric mean) at
-// guardBits extra bits plus as many bits as cancel when x is near 1.
-// Log(1) = 0 exactly and Log(+Inf) = +Inf. x <= 0 panics (a programmer
-// error: callers check their data before taking logarithms).
+// 1 ulp (LogTo at that precision). Log(1) = 0 exactly and Log(+Inf) = +Inf.
+// x <= 0 panics (a programmer error: callers check their data before
+// taking logarithms).
 func Log(x *big.Float) *big.Float {
 	if x.Sign() <= 0 {
 		panic("precision: Log of a non-positive number")
 	}
 	p := resultPrec(x)
-	z := new(big.Float).SetPrec(p)
 	if x.IsInf() {
-		return z.SetInf(false)
+		return new(big.Float).SetPrec(p).SetInf(false)
 	}
+	return LogTo(x, p)
+}
+
+// logBigfloat is LogTo by bigfloat.Log (the arithmetic-geometric mean) at
+// guardBits extra bits plus as many bits as cancel when x is near 1.
+func logBigfloat(x *big.Float, p uint) *big.Float {
+	z := new(big.Float).SetPrec(p)
 	w := p + guardBits
-	d := new(big.Float).SetPrec(p).Sub(x, big.NewFloat(1))
+	d := new(big.Float).SetPrec(x.Prec()+2).Sub(x, big.NewFloat(1))
 	if d.Sign() == 0 {
 		return z
 	}

@@ -1,19 +1,22 @@
-package moments
+package precision
 
 import (
 	"math"
 	"math/big"
 	"sync"
-
-	"quadwright/precision"
 )
 
-// The quadrature evaluates an exponential per node and the weight's
-// functions at every node, thousands of times at 100-300 bits. At those
-// precisions the general routines of package precision (exp by Newton on an
-// AGM logarithm) cost some 100 microseconds a call; the classical argument
-// reduction plus Taylor series below costs a few. Both are tested against
-// package precision at higher precision (elementary_test.go).
+// The quadratures evaluate an exponential per node and a weight's functions
+// at every node, thousands of times at 100-300 bits. At those precisions
+// bigfloat's routines (exp by Newton on an AGM logarithm) cost some 300
+// microseconds a call; the classical argument reduction plus Taylor series
+// below costs about 2 (and stays 5 to 30 times faster up to 8192 bits). Exp, Log and Pow take this route up to fastElemBits
+// and bigfloat's beyond; each route is tested against the other at higher
+// precision (elemfast_test.go).
+
+// fastElemBits is the highest precision at which Exp, Log and Pow use the
+// series below rather than bigfloat.
+const fastElemBits = 8192
 
 // elemGuard is the number of bits the functions below carry beyond the
 // result's precision; with the s squarings of expBig (each doubling the
@@ -25,19 +28,21 @@ const elemGuard = 40
 // Taylor series (and squarings after it).
 const expSquarings = 8
 
-// expBig returns e^x rounded to prec bits, within 1 ulp. x is reduced as
+// ExpTo returns e^x rounded to prec bits, within 1 ulp, whatever the
+// precision of x. x is reduced as
 // x = k ln 2 + r with |r| <= ln(2)/2 (ln 2 carrying the bits of k), then
 // r/2^s summed by its Taylor series and squared s times (Brent, "Fast
 // multiple-precision evaluation of elementary functions", J. ACM 23, 1976,
-// section 3: argument reduction and the power series). |x| >= 2^24 goes to
-// precision.Exp, which also gives +Inf or 0 beyond big.Float's range.
-func expBig(x *big.Float, prec uint) *big.Float {
+// section 3: argument reduction and the power series). |x| >= 2^24 and
+// precisions above fastElemBits go to bigfloat, which also gives +Inf or 0
+// beyond big.Float's range.
+func ExpTo(x *big.Float, prec uint) *big.Float {
 	z := new(big.Float).SetPrec(prec)
 	if x.Sign() == 0 {
 		return z.SetInt64(1)
 	}
-	if x.IsInf() || x.MantExp(nil) > 24 {
-		return z.Set(precision.Exp(new(big.Float).SetPrec(prec).Set(x)))
+	if x.IsInf() || x.MantExp(nil) > 24 || prec > fastElemBits {
+		return expBigfloat(x, prec)
 	}
 	tab := expTable(prec + elemGuard + expSquarings)
 	w := tab.prec
@@ -53,8 +58,8 @@ func expBig(x *big.Float, prec uint) *big.Float {
 	r.SetMantExp(r, -expSquarings)
 	// Horner's rule on the Taylor polynomial, in precision.Real: the
 	// products then allocate nothing.
-	s := make([]*precision.Real, 2)
-	s[0], s[1] = precision.NewReal(w), precision.NewReal(w)
+	s := make([]*Real, 2)
+	s[0], s[1] = NewReal(w), NewReal(w)
 	rr, sum := s[0].SetBig(r), s[1]
 	n := len(tab.invFact) - 1
 	sum.Set(tab.invFact[n])
@@ -76,7 +81,7 @@ func expBig(x *big.Float, prec uint) *big.Float {
 type expTab struct {
 	prec    uint
 	ln2     *big.Float
-	invFact []*precision.Real
+	invFact []*Real
 }
 
 var expTabs sync.Map // words (uint) -> *expTab
@@ -89,14 +94,14 @@ func expTable(w uint) *expTab {
 		return t.(*expTab)
 	}
 	p := 64 * words
-	t := &expTab{prec: p, ln2: new(big.Float).SetPrec(p + 40).Set(precision.Ln2(p + 40))}
+	t := &expTab{prec: p, ln2: new(big.Float).SetPrec(p + 40).Set(Ln2(p + 40))}
 	f := new(big.Float).SetPrec(p + 16).SetInt64(1)
 	// |r| < 2^-(s+1/2) after the reduction; stop when r^n/n! < 2^-(p+8).
 	for n := int64(0); ; n++ {
 		if n > 0 {
 			f.Quo(f, new(big.Float).SetInt64(n))
 		}
-		t.invFact = append(t.invFact, precision.NewReal(p).SetBig(f))
+		t.invFact = append(t.invFact, NewReal(p).SetBig(f))
 		if float64(f.MantExp(nil))-float64(n)*(expSquarings+0.5) < -float64(p)-8 {
 			break
 		}
@@ -105,17 +110,20 @@ func expTable(w uint) *expTab {
 	return v.(*expTab)
 }
 
-// logBig returns ln x rounded to prec bits, within 1 ulp, for finite x > 0
-// (other x panic). Near 1, with z = x-1 formed exactly, |z| < 2^-(prec/3+2)
+// LogTo returns ln x rounded to prec bits, within 1 ulp, for finite x > 0
+// (other x panic), whatever the precision of x. Near 1, with z = x-1 formed exactly, |z| < 2^-(prec/3+2)
 // takes the series z - z^2/2 + z^3/3 - ..., which converges in a few terms
 // and keeps the relative accuracy however close x is to 1 (this is what a
 // point given by its distance to the end 1 needs); otherwise Halley's
 // iteration y <- y + 2(x - e^y)/(x + e^y) from the float64 logarithm
 // triples the correct bits per step, carried at prec + guard bits plus the
 // bits that cancel near 1.
-func logBig(x *big.Float, prec uint) *big.Float {
+func LogTo(x *big.Float, prec uint) *big.Float {
 	if x.Sign() <= 0 || x.IsInf() {
-		panic("moments: logBig of a number that is not finite and positive")
+		panic("precision: LogTo of a number that is not finite and positive")
+	}
+	if prec > fastElemBits {
+		return logBigfloat(x, prec)
 	}
 	w := prec + elemGuard
 	one := big.NewFloat(1)
@@ -156,14 +164,14 @@ func logBig(x *big.Float, prec uint) *big.Float {
 	mf, _ := mant.Float64()
 	y := new(big.Float).SetPrec(w).SetFloat64(math.Log(mf))
 	if e != 0 {
-		y.Add(y, new(big.Float).SetPrec(w).Mul(new(big.Float).SetPrec(w).SetInt64(int64(e)), precision.Ln2(w)))
+		y.Add(y, new(big.Float).SetPrec(w).Mul(new(big.Float).SetPrec(w).SetInt64(int64(e)), Ln2(w)))
 	}
 	// Each step runs at the precision its result can have, 3 bits + 16
 	// (the last one at w): the early steps are cheap.
 	for bits := uint(45); ; bits *= 3 {
 		sp := min(w, 3*bits+16)
 		xw := new(big.Float).SetPrec(sp).Set(x)
-		ey := expBig(y, sp)
+		ey := ExpTo(y, sp)
 		num := new(big.Float).SetPrec(sp).Sub(xw, ey)
 		num.Quo(num, new(big.Float).SetPrec(sp).Add(xw, ey))
 		num.SetMantExp(num, 1)
@@ -175,11 +183,10 @@ func logBig(x *big.Float, prec uint) *big.Float {
 	return new(big.Float).SetPrec(prec).Set(y)
 }
 
-// powBig returns a^b = e^(b ln a) rounded to prec bits, within 1 ulp, for
+// PowTo returns a^b = e^(b ln a) rounded to prec bits, within 1 ulp, for
 // finite a > 0 (other a panic): ln a is formed with as many extra bits as
-// |b ln a| has above 1, so that the exponential keeps the relative accuracy
-// (as precision.Pow does).
-func powBig(a, b *big.Float, prec uint) *big.Float {
+// |b ln a| has above 1, so that the exponential keeps the relative accuracy.
+func PowTo(a, b *big.Float, prec uint) *big.Float {
 	if b.Sign() == 0 || a.Cmp(big.NewFloat(1)) == 0 {
 		return new(big.Float).SetPrec(prec).SetInt64(1)
 	}
@@ -202,18 +209,6 @@ func powBig(a, b *big.Float, prec uint) *big.Float {
 		}
 		w += uint(mag)
 	}
-	l := logBig(a, w)
-	return expBig(l.Mul(l, b), prec)
-}
-
-// bitLen returns the number of bits of |e|.
-func bitLen(e int) int {
-	if e < 0 {
-		e = -e
-	}
-	n := 0
-	for ; e != 0; e >>= 1 {
-		n++
-	}
-	return n
+	l := LogTo(a, w)
+	return ExpTo(l.Mul(l, b), prec)
 }
