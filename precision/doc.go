@@ -12,11 +12,13 @@
 // The package holds three kinds of code:
 //
 //   - working precision: DigitsToBits, WorkingPrec, RaisePrec;
-//   - constants and special functions: Pi, Ln2, Exp, Log, Pow, Sqrt, Sin,
-//     Cos, Atan, LogGamma, Gamma and their rational-argument variants;
+//   - constants and special functions: Pi, Ln2, Exp, Log, Pow (and ExpTo,
+//     LogTo, PowTo at a given precision: argument reduction and series up
+//     to 8192 bits, bigfloat beyond), Sqrt, Sin, Cos, Atan, LogGamma, Gamma
+//     and their rational-argument variants;
 //   - exact conversion between decimal text and binary values: ParseNumber,
 //     ParseExact, DecimalULP, FormatSig, FormatFloat64, NearestFloat64.
 //
-// Caches (of pi, ln 2 and Bernoulli numbers) are guarded by mutexes, so all
+// Caches (of pi, ln 2, inverse factorials and Bernoulli numbers) are guarded by mutexes, so all
 // functions are safe for concurrent use.
 package precision
