@@ -286,19 +286,8 @@ func TestProductVerifierCatchesAWrongRule(t *testing.T) {
 	if err != nil || ex.Degree != 11 {
 		t.Fatalf("degree %d, error %v", ex.Degree, err)
 	}
-	bump := func(s string) string {
-		v := rat(t, s)
-		v.Mul(v, new(big.Rat).SetFrac64(100000000000000000+1, 100000000000000000)) // relative 1e-17
-		return precision.FormatSig(new(big.Float).SetPrec(256).SetRat(v), 30)
-	}
 	for _, which := range []string{"weight", "node"} {
-		nodes := append([]string(nil), r.Nodes...)
-		weights := append([]string(nil), r.Weights...)
-		if which == "weight" {
-			weights[2] = bump(weights[2])
-		} else {
-			nodes[2] = bump(nodes[2])
-		}
+		nodes, weights := bumpOne(t, r, which, 2)
 		ex, err := VerifyPrintedProducts(context.Background(), src, nodes, weights, 11)
 		if err != nil {
 			t.Fatal(err)
@@ -322,19 +311,8 @@ func TestExprVerifierCatchesAWrongRule(t *testing.T) {
 	if r.Degree != 15 {
 		t.Fatalf("degree %d, want 15", r.Degree)
 	}
-	bump := func(s string) string {
-		v := rat(t, s)
-		v.Mul(v, new(big.Rat).SetFrac64(100000000000000000+1, 100000000000000000)) // relative 1e-17
-		return precision.FormatSig(new(big.Float).SetPrec(256).SetRat(v), 30)
-	}
 	for _, which := range []string{"weight", "node"} {
-		nodes := append([]string(nil), r.Nodes...)
-		weights := append([]string(nil), r.Weights...)
-		if which == "weight" {
-			weights[5] = bump(weights[5])
-		} else {
-			nodes[5] = bump(nodes[5])
-		}
+		nodes, weights := bumpOne(t, r, which, 5)
 		ex, err := src.VerifyRule(context.Background(), nodes, weights, 15)
 		if err != nil {
 			t.Fatal(err)
@@ -348,4 +326,19 @@ func TestExprVerifierCatchesAWrongRule(t *testing.T) {
 	if err != nil || ex.Degree != 15 || ex.Tested != 40 {
 		t.Errorf("tested to 40: degree %d of %d, error %v (want 15 of 40)", ex.Degree, ex.Tested, err)
 	}
+}
+
+// bumpOne returns r's printed nodes and weights with the weight (which ==
+// "weight") or the node i changed by a relative 1e-17, printed to 30 digits.
+func bumpOne(t *testing.T, r *Rule, which string, i int) (nodes, weights []string) {
+	nodes = append([]string(nil), r.Nodes...)
+	weights = append([]string(nil), r.Weights...)
+	target := &nodes[i]
+	if which == "weight" {
+		target = &weights[i]
+	}
+	v := rat(t, *target)
+	v.Mul(v, new(big.Rat).SetFrac64(100000000000000000+1, 100000000000000000))
+	*target = precision.FormatSig(new(big.Float).SetPrec(256).SetRat(v), 30)
+	return nodes, weights
 }
