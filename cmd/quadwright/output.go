@@ -26,6 +26,15 @@ func writeOutput(path string, stdout io.Writer, render func(w *strings.Builder) 
 
 // writeFileAtomic writes data to path by way of a temporary file and a rename.
 func writeFileAtomic(path string, data []byte) error {
+	return writeAtomic(path, func(w io.Writer) error {
+		_, err := w.Write(data)
+		return err
+	})
+}
+
+// writeAtomic calls write on a temporary file in path's folder and renames
+// it to path once write and the close succeeded; otherwise it removes it.
+func writeAtomic(path string, write func(w io.Writer) error) error {
 	dir := filepath.Dir(path)
 	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp-*")
 	if err != nil {
@@ -36,7 +45,7 @@ func writeFileAtomic(path string, data []byte) error {
 	// output, readable like any file the user's tools write.
 	werr := tmp.Chmod(0o644)
 	if werr == nil {
-		_, werr = tmp.Write(data)
+		werr = write(tmp)
 	}
 	cerr := tmp.Close()
 	if werr == nil {

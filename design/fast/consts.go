@@ -14,6 +14,9 @@ const constPrec = 192
 
 func bf(v float64) *big.Float { return new(big.Float).SetPrec(constPrec).SetFloat64(v) }
 
+// bfDD returns hi + lo exactly.
+func bfDD(v dd) *big.Float { return bf(v.hi).Add(bf(v.hi), bf(v.lo)) }
+
 // lgam returns log Gamma(v + k) at constPrec bits for v + k > 0 (k an
 // integer, added exactly).
 func lgam(v *big.Float, k int) *big.Float {
@@ -28,7 +31,8 @@ func expRound(l *big.Float) float64 {
 	return precision.NearestFloat64(precision.Exp(l))
 }
 
-// jacobiConsts returns, for the n-point rule of (1-x)^a (1+x)^b, the
+// jacobiConsts returns, for the n-point rule of (1-x)^a (1+x)^b (a and b
+// in double-double, so that exponents such as -0.3 enter exactly), the
 // constants of the two weight formulas, each correct to within one rounding
 // (Szego, Orthogonal Polynomials, 1939, eq. 15.3.1, for the Christoffel
 // numbers lambda = cw / ((1-x^2) P_n'(x)^2)):
@@ -40,10 +44,10 @@ func expRound(l *big.Float) float64 {
 // K being the factor in front of the interior expansion and binom(n+a, n)
 // the value P_n(1) in front of the hypergeometric series; lnInterior is
 // log(interior) in double-double.
-func jacobiConsts(n int, a, b float64) (interior, boundary float64, lnInterior dd) {
+func jacobiConsts(n int, a, b dd) (interior, boundary float64, lnInterior dd) {
 	ln2 := precision.Ln2(constPrec)
 	lpi := precision.Log(precision.Pi(constPrec))
-	ba, bb := bf(a), bf(b)
+	ba, bb := bfDD(a), bfDD(b)
 	ab := new(big.Float).SetPrec(constPrec).Add(ba, bb) // exact
 	gna, gnb := lgam(ba, n+1), lgam(bb, n+1)
 	gnab := lgam(ab, n+1)

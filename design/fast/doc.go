@@ -1,7 +1,7 @@
 // Package fast computes classical Gauss rules in float64 in O(N) time, for
 // rules far larger than the extended-precision engine of package design
-// can build (N up to 10^6 and beyond): Gauss-Legendre (gonum's
-// implementation of Bogaert 2014), Gauss-Jacobi and its Radau and Lobatto
+// can build (N up to 10^6 and beyond): Gauss-Legendre (Bogaert 2014, the
+// node angle formed in double-double), Gauss-Jacobi and its Radau and Lobatto
 // rules (Hale and Townsend 2013: interior asymptotics, with the nodes next
 // to the ends from the hypergeometric series), and generalized
 // Gauss-Laguerre and Gauss-Hermite (Glaser, Liu and Rokhlin 2007: Taylor

@@ -18,6 +18,13 @@ import (
 // parameter when alpha is outside (-1, MaxJacobiExponent] or beta outside
 // (-1, MaxJacobiExponent-1].
 func RadauJacobi(n int, alpha, beta float64, x, w []float64) error {
+	return radauJacobi(n, ddF(alpha), ddF(beta), x, w, nil)
+}
+
+// radauJacobi is RadauJacobi for the exponents ea, eb in double-double,
+// with the distances to the nearer end in d when d is not nil.
+func radauJacobi(n int, ea, eb dd, x, w, d []float64) error {
+	alpha, beta := ea.hi, eb.hi
 	checkLen(n, x, w)
 	if n < 2 {
 		panic("fast: Radau rule with n < 2")
@@ -28,10 +35,14 @@ func RadauJacobi(n int, alpha, beta float64, x, w []float64) error {
 	if err := checkExponent("beta", beta+1); err != nil {
 		return err
 	}
-	if err := jacobiCore(n-1, alpha, beta+1, x[1:], w[1:], 0, 1); err != nil {
+	var dFree []float64
+	if d != nil {
+		d[0], dFree = 0, d[1:]
+	}
+	if err := jacobiCore(n-1, ea, ddAdd(eb, ddF(1)), x[1:], w[1:], dFree, 0, 1); err != nil {
 		return err
 	}
-	x[0], w[0] = -1, radauEnd(n, alpha, beta)
+	x[0], w[0] = -1, radauEnd(n, ea, eb)
 	return nil
 }
 
@@ -56,6 +67,14 @@ func RadauLegendre(n int, x, w []float64) {
 // an error naming the parameter when alpha or beta is outside (-1,
 // MaxJacobiExponent-1].
 func LobattoJacobi(n int, alpha, beta float64, x, w []float64) error {
+	return lobattoJacobi(n, ddF(alpha), ddF(beta), x, w, nil)
+}
+
+// lobattoJacobi is LobattoJacobi for the exponents ea, eb in
+// double-double, with the distances to the nearer end in d when d is not
+// nil.
+func lobattoJacobi(n int, ea, eb dd, x, w, d []float64) error {
+	alpha, beta := ea.hi, eb.hi
 	checkLen(n, x, w)
 	if n < 3 {
 		panic("fast: Lobatto rule with n < 3")
@@ -66,11 +85,15 @@ func LobattoJacobi(n int, alpha, beta float64, x, w []float64) error {
 	if err := checkExponent("beta", beta+1); err != nil {
 		return err
 	}
-	if err := jacobiCore(n-2, alpha+1, beta+1, x[1:n-1], w[1:n-1], 1, 1); err != nil {
+	var dFree []float64
+	if d != nil {
+		d[0], d[n-1], dFree = 0, 0, d[1:n-1]
+	}
+	if err := jacobiCore(n-2, ddAdd(ea, ddF(1)), ddAdd(eb, ddF(1)), x[1:n-1], w[1:n-1], dFree, 1, 1); err != nil {
 		return err
 	}
-	x[0], w[0] = -1, lobattoEnd(n, beta, alpha)
-	x[n-1], w[n-1] = 1, lobattoEnd(n, alpha, beta)
+	x[0], w[0] = -1, lobattoEnd(n, eb, ea)
+	x[n-1], w[n-1] = 1, lobattoEnd(n, ea, eb)
 	return nil
 }
 
@@ -92,8 +115,8 @@ func sumLog(terms ...*big.Float) *big.Float {
 func neg(x *big.Float) *big.Float { return new(big.Float).SetPrec(constPrec).Neg(x) }
 
 // radauEnd is the Radau weight at -1 (see RadauJacobi), rounded once.
-func radauEnd(n int, a, b float64) float64 {
-	ba, bb := bf(a), bf(b)
+func radauEnd(n int, a, b dd) float64 {
+	ba, bb := bfDD(a), bfDD(b)
 	ab := new(big.Float).SetPrec(constPrec).Add(ba, bb)
 	l := sumLog(
 		new(big.Float).SetPrec(constPrec).Mul(sumLog(ab, bf(1)), precLn2()),
@@ -104,8 +127,8 @@ func radauEnd(n int, a, b float64) float64 {
 
 // lobattoEnd is the Lobatto weight (see LobattoJacobi) at the end where
 // the weight function behaves as (1-x)^a, rounded once.
-func lobattoEnd(n int, a, b float64) float64 {
-	ba, bb := bf(a), bf(b)
+func lobattoEnd(n int, a, b dd) float64 {
+	ba, bb := bfDD(a), bfDD(b)
 	ab := new(big.Float).SetPrec(constPrec).Add(ba, bb)
 	l := sumLog(
 		new(big.Float).SetPrec(constPrec).Mul(sumLog(ab, bf(1)), precLn2()),

@@ -24,37 +24,13 @@ import (
 // double-double accuracy of phi_n' and one rounding. The march is sequential: O(n) work on one core.
 func Hermite(n int, x, w []float64, scaled bool) {
 	checkLen(n, x, w)
+	hermiteMarch(n, x, w, scaled)
+}
+
+// hermiteMarch is Hermite's sequential march from x = 0.
+func hermiteMarch(n int, x, w []float64, scaled bool) {
 	A := float64(2*n + 1)
-	m := newMarcher(func(x0 dd, c []dd, cf []float64, h0 float64) int {
-		// phi(x0+h) = sum c_k h^k; (k+2)(k+1) c_{k+2} = -(A - x0^2) c_k + 2 x0 c_{k-1} + c_{k-2}.
-		a := ddSub(ddF(A), ddMul(x0, x0))
-		x2 := ddMulF(x0, 2)
-		for k := 0; k+2 < len(c); k++ {
-			s := ddNeg(ddMul(a, c[k]))
-			if k >= 1 {
-				s = ddAddFast(s, ddMul(x2, c[k-1]))
-			}
-			if k >= 2 {
-				s = ddAddFast(s, c[k-2])
-			}
-			c[k+2] = ddMul(s, invPair[k])
-		}
-		K := len(c)
-		for k := range c {
-			cf[k] = c[k].hi
-		}
-		af, xf := a.hi, x2.hi
-		scale := math.Abs(c[1].hi*h0) + math.Abs(c[0].hi)
-		hk := math.Pow(h0, float64(K))
-		for k := K - 2; k+2 < len(cf); k++ {
-			cf[k+2] = (-af*cf[k] + xf*cf[k-1] + cf[k-2]) * invPair[k].hi
-			hk *= h0
-			if k+2 > K+2 && math.Abs(cf[k+2])*hk < 1e-34*scale && math.Abs(cf[k+1])*hk < 1e-34*scale*h0 {
-				return k + 3
-			}
-		}
-		return len(cf)
-	}, ddTerms)
+	m := newMarcher(hermiteCoef(A), ddTerms)
 	half := n / 2
 	// Positive zeros go to x[n-half..n-1]; for odd n the middle node is 0.
 	var x0, u, du dd
@@ -117,4 +93,39 @@ func splitDDc(x *big.Float) dd {
 	r := new(big.Float).SetPrec(constPrec).Sub(x, new(big.Float).SetFloat64(hi))
 	lo, _ := r.Float64()
 	return dd{hi, lo}
+}
+
+// hermiteCoef returns the marcher's Taylor coefficients of phi_n about x0
+// (A = 2n+1).
+func hermiteCoef(A float64) func(x0 dd, c []dd, cf []float64, h0 float64) int {
+	return func(x0 dd, c []dd, cf []float64, h0 float64) int {
+		// phi(x0+h) = sum c_k h^k; (k+2)(k+1) c_{k+2} = -(A - x0^2) c_k + 2 x0 c_{k-1} + c_{k-2}.
+		a := ddSub(ddF(A), ddMul(x0, x0))
+		x2 := ddMulF(x0, 2)
+		for k := 0; k+2 < len(c); k++ {
+			s := ddNeg(ddMul(a, c[k]))
+			if k >= 1 {
+				s = ddAddFast(s, ddMul(x2, c[k-1]))
+			}
+			if k >= 2 {
+				s = ddAddFast(s, c[k-2])
+			}
+			c[k+2] = ddMul(s, invPair[k])
+		}
+		K := len(c)
+		for k := range c {
+			cf[k] = c[k].hi
+		}
+		af, xf := a.hi, x2.hi
+		scale := math.Abs(c[1].hi*h0) + math.Abs(c[0].hi)
+		hk := math.Pow(h0, float64(K))
+		for k := K - 2; k+2 < len(cf); k++ {
+			cf[k+2] = (-af*cf[k] + xf*cf[k-1] + cf[k-2]) * invPair[k].hi
+			hk *= h0
+			if k+2 > K+2 && math.Abs(cf[k+2])*hk < 1e-34*scale && math.Abs(cf[k+1])*hk < 1e-34*scale*h0 {
+				return k + 3
+			}
+		}
+		return len(cf)
+	}
 }

@@ -41,13 +41,19 @@ func Jacobi(n int, alpha, beta float64, x, w []float64) error {
 	if err := checkExponent("beta", beta); err != nil {
 		return err
 	}
-	return jacobiCore(n, alpha, beta, x, w, 0, 0)
+	return jacobiCore(n, ddF(alpha), ddF(beta), x, w, nil, 0, 0)
 }
 
 // jacobiCore sets x and w to the n-point Gauss-Jacobi rule with each weight
 // divided by (1-x)^pa (1+x)^pb (pa, pb in {0, 1}), the distances to the ends
-// taken from the computation rather than from the rounded node.
-func jacobiCore(n int, alpha, beta float64, x, w []float64, pa, pb int) error {
+// taken from the computation rather than from the rounded node. When d is
+// not nil it receives those distances, d[i] = min(1-x_i, 1+x_i), each to a
+// few ulp in relative terms. The exponents ea and eb are double-double: the
+// per-rule constants and the weights' powers take them exactly, the
+// asymptotic expansions their float64 parts (the rest moves the nodes by
+// far less than an ulp).
+func jacobiCore(n int, ea, eb dd, x, w, d []float64, pa, pb int) error {
+	alpha, beta := ea.hi, eb.hi
 	var adjust func(p point) float64
 	switch {
 	case pa == 0 && pb == 0:
@@ -66,10 +72,13 @@ func jacobiCore(n int, alpha, beta float64, x, w []float64, pa, pb int) error {
 		}
 		for i, p := range pts {
 			x[i], w[i] = p.x, adjust(p)
+			if d != nil {
+				d[i] = min(p.omx, p.opx)
+			}
 		}
 		return nil
 	}
-	right, left, err := jacobiHalves(n, alpha, beta)
+	right, left, err := jacobiHalves(n, ea, eb)
 	if err != nil {
 		return err
 	}
@@ -87,6 +96,9 @@ func jacobiCore(n int, alpha, beta float64, x, w []float64, pa, pb int) error {
 				p, ok = right.point(n - i)
 			}
 			x[i], w[i] = p.x, adjust(p)
+			if d != nil {
+				d[i] = min(p.omx, p.opx)
+			}
 			if !ok {
 				localBad = true
 			}
@@ -117,11 +129,12 @@ func rightCount(n int, a, b float64) int {
 
 // jacobiHalves prepares both halves of the n-point rule, boundary blocks
 // included.
-func jacobiHalves(n int, a, b float64) (right, left *jacobiHalf, err error) {
-	ci, cbR, lci := jacobiConsts(n, a, b)
-	_, cbL, _ := jacobiConsts(n, b, a)
-	right = newJacobiHalf(n, a, b, ci, cbR)
-	left = newJacobiHalf(n, b, a, ci, cbL)
+func jacobiHalves(n int, ea, eb dd) (right, left *jacobiHalf, err error) {
+	a, b := ea.hi, eb.hi
+	ci, cbR, lci := jacobiConsts(n, ea, eb)
+	_, cbL, _ := jacobiConsts(n, eb, ea)
+	right = newJacobiHalf(n, ea, eb, ci, cbR)
+	left = newJacobiHalf(n, eb, ea, ci, cbL)
 	right.lnci, left.lnci = lci, lci
 	kb := boundaryNodes
 	if !right.boundary(kb) || !left.boundary(kb) {

@@ -14,7 +14,7 @@ const boundaryNodes = 10
 // Orthogonal Polynomials, 1939, eq. 4.21.2). The series is summed until its
 // terms fall below 2^-110 of the largest one (or terminates at j = n).
 func (h *jacobiHalf) hyper(z dd) (f, g dd) {
-	ab := twoSum(h.a, h.b)
+	ab := ddAdd(h.aDD, h.bDD)
 	t := ddF(1)
 	f = t
 	g = ddF(0)
@@ -22,7 +22,7 @@ func (h *jacobiHalf) hyper(z dd) (f, g dd) {
 	for j := 0; j < h.n; j++ {
 		fj := float64(j)
 		num := ddMul(ddF(fj-float64(h.n)), ddAdd(ab, ddF(fj+float64(h.n)+1)))
-		den := ddMul(twoSum(fj+1, h.a), ddF(fj+1))
+		den := ddMul(ddAdd(ddF(fj+1), h.aDD), ddF(fj+1))
 		t = ddMul(ddMul(t, ddDiv(num, den)), z)
 		f = ddAdd(f, t)
 		g = ddAdd(g, ddMulF(t, fj+1))

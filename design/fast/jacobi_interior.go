@@ -21,6 +21,8 @@ type jacobiHalf struct {
 	n      int
 	a, b   float64
 	rho    float64 // n + (a+b+1)/2
+	irho   float64 // 1/rho
+	ishift float64 // 1/(2 (2 rho + 1))
 	cst    float64 // (a+b+1)/2
 	ci, cb float64 // weight constants (jacobiConsts)
 	coef   []float64
@@ -28,6 +30,10 @@ type jacobiHalf struct {
 	bnd    []point   // nodes of the boundary block, k = 1..len(bnd)
 	rhoDD  dd        // rho in double-double
 	lnci   dd        // log ci in double-double
+	aDD    dd        // the exponents in double-double
+	bDD    dd
+	powA   dd // 2a+1 and 2b+1 in double-double
+	powB   dd
 }
 
 // point is one node x with its weight w and the distances 1-x and 1+x to
@@ -38,10 +44,15 @@ type point struct{ x, w, omx, opx float64 }
 // newJacobiHalf prepares the expansion coefficients
 //
 //	C_{m,l} = (1/2+a)_l (1/2-a)_l (1/2+b)_{m-l} (1/2-b)_{m-l} / (l! (m-l)!).
-func newJacobiHalf(n int, a, b float64, ci, cb float64) *jacobiHalf {
-	h := &jacobiHalf{n: n, a: a, b: b, ci: ci, cb: cb}
+func newJacobiHalf(n int, ea, eb dd, ci, cb float64) *jacobiHalf {
+	a, b := ea.hi, eb.hi
+	h := &jacobiHalf{n: n, a: a, b: b, ci: ci, cb: cb, aDD: ea, bDD: eb}
+	h.powA = ddAdd(ddMulF(ea, 2), ddF(1))
+	h.powB = ddAdd(ddMulF(eb, 2), ddF(1))
 	h.cst = (a + b + 1) / 2
 	h.rho = float64(n) + h.cst
+	h.irho = 1 / h.rho
+	h.ishift = 1 / (2 * (2*h.rho + 1))
 	h.rhoDD = ddAdd(ddF(float64(n)), ddMulF(ddAdd(twoSum(a, b), ddF(1)), 0.5))
 	pa := make([]float64, maxTerms) // (1/2+a)_l (1/2-a)_l / l!
 	pb := make([]float64, maxTerms)
@@ -82,19 +93,19 @@ func newJacobiHalf(n int, a, b float64, ci, cb float64) *jacobiHalf {
 // and a double-double pi, so the node keeps its relative accuracy for rho
 // theta up to 2^52; the terms stop when they fall below termTol. ok is
 // false when they did not (the expansion is not valid at this theta).
-func (h *jacobiHalf) eval(k int, theta float64) (u, du float64, duDD dd, ok bool) {
+func (h *jacobiHalf) eval(k int, theta, s, c float64) (u, du float64, duDD dd, ok bool) {
 	// r = rho*theta - (k + a/2 - 1/4) pi.
 	nt := twoProd(float64(h.n), theta)
 	kk := float64(k) - 0.25
 	kp := twoProd(kk, math.Pi)
 	r := (nt.hi - kp.hi) + (nt.lo - kp.lo) + h.cst*theta - kk*pi2 - h.a*(math.Pi/2)
-	sr, cr := math.Sincos(r)
+	sr, cr := sinCosSmall(r)
 	cy, sy := sr, -cr // cos and sin of phi = theta_{0,0}, sign (-1)^k dropped
-	s, c := math.Sincos(theta / 2)
-	t := c / s
-	sinT := 2 * s * c
-	tanH := s / c
-	ic := 1 / c
+	is := 1 / (s * c) // one division for cot, sec and csc of the half angle
+	t := c * c * is   // cot(theta/2)
+	ic := s * is      // 1/cos(theta/2)
+	isinT := 0.5 * is // 1/sin(theta) = 1/(2 s c)
+	tanH := s * ic
 	cm := 1.0 // c^-m
 	ok = false
 	for m := 0; m < maxTerms; m++ {
@@ -118,7 +129,8 @@ func (h *jacobiHalf) eval(k int, theta float64) (u, du float64, duDD dd, ok bool
 		Cd := cy*l02 + sy*l13
 		u += f * A
 		if m > 0 {
-			du += f * (-(h.rho+float64(m)/2)*B + float64(m)/2*tanH*A - Cd/sinT)
+			hm := 0.5 * float64(m)
+			du += f * (-(h.rho+hm)*B + hm*tanH*A - Cd*isinT)
 		}
 		if f*mag*(1+float64(m)) < termTol && m > 0 {
 			ok = true
@@ -133,9 +145,9 @@ func (h *jacobiHalf) eval(k int, theta float64) (u, du float64, duDD dd, ok bool
 	crDD := ddF(cr)
 	if math.Abs(r) < 1e-3 {
 		r2 := r * r
-		crDD = quickTwoSum(1, -r2/2*(1-r2/12*(1-r2/30)))
+		crDD = quickTwoSum(1, -r2*0.5*(1-r2*(1.0/12)*(1-r2*(1.0/30))))
 	}
-	duDD = ddAdd(ddMul(h.rhoDD, crDD), ddF(du))
+	duDD = ddAddFast(ddMul(h.rhoDD, crDD), ddF(du)) // |du| is below 1/rho of the first term
 	return u, duDD.float(), duDD, ok
 }
 
@@ -151,15 +163,20 @@ func (h *jacobiHalf) node(k int) (p point, ok bool) {
 	// Leading-order zero plus the shift that the m = 1 term causes,
 	// E = [(1/4-a^2) cot(t/2) - (1/4-b^2) tan(t/2)] / (2 (2 rho + 1)),
 	// which leaves rho |error| of order E^2.
-	t0 := (float64(k) + h.a/2 - 0.25) * math.Pi / h.rho
+	t0 := (float64(k) + h.a/2 - 0.25) * math.Pi * h.irho
 	cot, tan := cotTanHalf(t0)
-	e := ((0.25-h.a*h.a)*cot - (0.25-h.b*h.b)*tan) / (2 * (2*h.rho + 1))
-	theta := t0 + e/h.rho
+	e := ((0.25-h.a*h.a)*cot - (0.25-h.b*h.b)*tan) * h.ishift
+	theta := t0 + e*h.irho
 	var duDD dd
 	var th dd
+	var s, c dd // sin and cos of th/2
 	for it := 0; it < 8; it++ {
 		var u, du float64
-		u, du, duDD, ok = h.eval(k, theta)
+		if !(theta > 0 && theta < 2.5) { // outside ddSinCos's range: diverged
+			return p, false
+		}
+		s, c = ddSinCos(ddF(0.5 * theta))
+		u, du, duDD, ok = h.eval(k, theta, s.hi, c.hi)
 		d := u / du
 		th = twoSum(theta, -d)
 		theta = th.hi
@@ -168,6 +185,13 @@ func (h *jacobiHalf) node(k int) (p point, ok bool) {
 			// Q ~ rho^2 from u'' = -Q u: one step from a close start
 			// gives the derivative at the zero.
 			duDD = ddMul(duDD, quickTwoSum(1, r*r/2))
+			// The half angle moves by delta = -d/2 (th carries the step
+			// exactly): rotate s and c by it, with sin delta = delta and
+			// cos delta = 1 - delta^2/2 to far below 2^-106 (|delta| <
+			// 1e-6/rho).
+			dl := -0.5 * d
+			h2 := 0.5 * dl * dl
+			s, c = quickTwoSum(s.hi, s.lo+(c.hi*dl-s.hi*h2)), quickTwoSum(c.hi, c.lo-(s.hi*dl+c.hi*h2))
 			break
 		}
 		if it == 7 {
@@ -179,12 +203,14 @@ func (h *jacobiHalf) node(k int) (p point, ok bool) {
 	// (2b+1) log c) / u'^2 with s = sin(th/2), c = cos(th/2) and the
 	// logarithms in double-double, so that neither the rounding of theta
 	// nor the error of math.Pow (up to 4 ulp) reaches the weight.
-	s, c := ddSinCos(ddMulF(th, 0.5))
-	l := ddAddFast(h.lnci, ddAddFast(ddMulF(ddLog(s), 2*h.a+1), ddMulF(ddLog(c), 2*h.b+1)))
+	l := ddAddFast(h.lnci, ddAddFast(ddMul(ddLog(s), h.powA), ddMul(ddLog(c), h.powB)))
 	p.w = quoF(ddExpF(l), ddMul(duDD, duDD))
-	p.x = ddSub(ddMul(c, c), ddMul(s, s)).float()
-	p.omx = ddMulF(ddMul(s, s), 2).float()
-	p.opx = ddMulF(ddMul(c, c), 2).float()
+	// x = 1 - 2 s^2 and 1 - x = 2 s^2 (theta <= ~pi/2, so s^2 <= ~1/2 and
+	// the subtraction loses nothing); 1 + x = 2 - 2 s^2 likewise.
+	s2 := ddMulF(ddMul(s, s), 2)
+	p.x = ddAddFast(ddF(1), ddNeg(s2)).float()
+	p.omx = s2.float()
+	p.opx = ddAddFast(ddF(2), ddNeg(s2)).float()
 	return p, ok
 }
 
@@ -205,4 +231,17 @@ func quoF(a float64, b dd) float64 {
 	q := a / b.hi
 	r := math.FMA(-q, b.hi, a) - q*b.lo
 	return q + r/b.hi
+}
+
+// sinCosSmall returns sin r and cos r: for |r| < 1/32 from their Taylor
+// series (truncation below 1e-19 relative), else from math.Sincos. Near a
+// zero of the interior expansion the phase r is small.
+func sinCosSmall(r float64) (sin, cos float64) {
+	if math.Abs(r) >= 1.0/32 {
+		return math.Sincos(r)
+	}
+	q := r * r
+	sin = r * (1 - q*(1.0/6)*(1-q*(1.0/20)*(1-q*(1.0/42)*(1-q*(1.0/72)))))
+	cos = 1 - q*0.5*(1-q*(1.0/12)*(1-q*(1.0/30)*(1-q*(1.0/56)*(1-q*(1.0/90)))))
+	return sin, cos
 }

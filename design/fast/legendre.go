@@ -1,64 +1,58 @@
 package fast
 
-import "gonum.org/v1/gonum/integrate/quad"
+import "math"
 
 // Legendre sets x and w to the nodes (ascending) and weights of the n-point
 // Gauss-Legendre rule on [-1, 1]. x and w must have length n (it panics
 // otherwise, or if n < 1).
 //
-// The values come from gonum's integrate/quad Legendre, an implementation of
-// Bogaert, "Iteration-free computation of Gauss-Legendre quadrature nodes
-// and weights", SIAM J. Sci. Comput. 36(3), A1008-A1026, 2014: tabulated
-// angles for n <= 100, and for larger n the node angle theta and the weight
-// from an asymptotic series in closed form, without iteration. gonum lists
-// the nodes in descending order and returns x = cos(theta) mapped through
-// (x+1)/2*2-1; the node therefore carries the rounding of theta and of
-// that map (near x = 0 an absolute error up to about 2.4e-16 rather than a
-// relative one) and the weights the few-ulp error the paper states. Only
-// the more accurate half of gonum's values is used (see legendreRange). The
-// figures measured against extended precision are in the package tests
-// (TestLegendreAgainstRecurrence); fast.Jacobi(n, 0, 0, x, w) gives nodes
-// within 0.5 ulp of theta and weights within about 2 ulp, at about twice
-// the cost.
+// For n >= 101 each point comes from Bogaert's iteration-free expansions
+// (bogaertPoint: the node angle in double-double, the node from its
+// accurate cosine), independently of the others and in parallel; below,
+// from Newton's method on the recurrence in double-double (as Jacobi).
+// The figures measured against extended precision are in the package
+// tests (TestLegendreAgainstRecurrence and Measured).
 func Legendre(n int, x, w []float64) {
 	checkLen(n, x, w)
-	legendreRange(n, 0, n, x, w)
+	legendreRange(n, 0, n, x, w, nil)
 }
 
-// legendreRange sets x[i-lo], w[i-lo] to the points lo..hi-1 of the n-point
-// rule. gonum forms its right half as cos(theta) and its left half as
-// cos(pi - theta), then maps x through (x+1)/2*2-1. The map is exact near
-// -1 and rounds by up to 1.1e-16 near +1, and float64 pi is 1.2e-16 short,
-// which matters only where sin(theta) is not small. So each node is taken
-// from the half where gonum is more accurate and mirrored when needed:
-// within about n/3 nodes of either end from the left half (x near -1), in
-// the middle from the right half (x = cos(theta) directly); the middle node
-// of an odd rule is exactly 0. Below mirrorMin points (gonum's tabulated
-// rules and just above) gonum's own values are used unchanged: there the
-// mirror measured worse.
-const mirrorMin = 200
-
-func legendreRange(n, lo, hi int, x, w []float64) {
-	var g quad.Legendre
+// legendreRange sets x[j], w[j] (and d[j] = 1 - |x[j]| to a few ulp in
+// relative terms, when d is not nil) to the points lo+j, lo <= lo+j < hi,
+// of the n-point rule.
+func legendreRange(n, lo, hi int, x, w, d []float64) {
+	if n < bogaertMin {
+		xs, ws, ds := make([]float64, n), make([]float64, n), make([]float64, n)
+		if err := jacobiCore(n, ddF(0), ddF(0), xs, ws, ds, 0, 0); err != nil {
+			panic(err) // the recurrence rule of Legendre converges for every n < 101
+		}
+		copy(x, xs[lo:hi])
+		copy(w, ws[lo:hi])
+		if d != nil {
+			copy(d, ds[lo:hi])
+		}
+		return
+	}
+	half := (n + 1) / 2
+	nh := float64(n) + 0.5
+	v := dd{1 / nh, 0} // 1/(n+1/2) in double-double
+	v.lo = math.FMA(-v.hi, nh, 1) / nh
 	parallelFor(hi-lo, func(a, b int) {
 		for j := a; j < b; j++ {
 			i := lo + j
-			d := min(i, n-1-i) // distance to the nearer end
-			src := d           // gonum-ascending index to evaluate: left half
-			if n <= mirrorMin {
-				src = i
-			} else if 3*d >= n {
-				src = n - 1 - d // right half
+			k, sign := n-i, 1.0 // k-th node from x = 1
+			if k > half {
+				k, sign = i+1, -1 // the mirror of the k-th from x = 1
 			}
-			// gonum's index k = n-1-src counts from the right end.
-			xi, wi := g.FixedLocationSingle(n, n-1-src, -1, 1)
-			if src != i {
-				xi = -xi
+			theta, wi := bogaertPoint(n, k, v)
+			xi, di := cosFromAngle(theta)
+			if 2*k == n+1 {
+				xi, di = 0, 1
 			}
-			if 2*i == n-1 && n > mirrorMin {
-				xi = 0
+			x[j], w[j] = sign*xi, wi
+			if d != nil {
+				d[j] = di
 			}
-			x[j], w[j] = xi, wi
 		}
 	})
 }

@@ -16,27 +16,33 @@ func parallelFor(n int, do func(lo, hi int)) {
 		return
 	}
 	blocks := (n + block - 1) / block
-	if workers > blocks {
-		workers = blocks
-	}
+	parallelEach(blocks, nil, func(b int) {
+		lo := b * block
+		do(lo, min(lo+block, n))
+	})
+}
+
+// parallelEach calls do(i) for i = 0..count-1 on runtime.GOMAXPROCS
+// goroutines, handing out one index at a time, and stops handing them out
+// once stop returns true (stop may be nil). Each call must be independent
+// of the others.
+func parallelEach(count int, stop func() bool, do func(i int)) {
 	var mu sync.Mutex
 	next := 0
 	var wg sync.WaitGroup
-	for w := 0; w < workers; w++ {
+	for g := 0; g < min(runtime.GOMAXPROCS(0), count); g++ {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
 			for {
 				mu.Lock()
-				b := next
+				i := next
 				next++
 				mu.Unlock()
-				if b >= blocks {
+				if i >= count || (stop != nil && stop()) {
 					return
 				}
-				lo := b * block
-				hi := min(lo+block, n)
-				do(lo, hi)
+				do(i)
 			}
 		}()
 	}

@@ -79,7 +79,7 @@ func streamLegendre(n int, emit func(i int, x, w float64) error) error {
 	x, w := make([]float64, size), make([]float64, size)
 	for lo := 0; lo < n; lo += size {
 		hi := min(lo+size, n)
-		legendreRange(n, lo, hi, x[:hi-lo], w[:hi-lo])
+		legendreRange(n, lo, hi, x[:hi-lo], w[:hi-lo], nil)
 		for i := lo; i < hi; i++ {
 			if err := emit(i, x[i-lo], w[i-lo]); err != nil {
 				return err
