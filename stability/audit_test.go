@@ -266,3 +266,30 @@ func FuzzParseRule(f *testing.F) {
 		}
 	})
 }
+
+func TestDegreeCappedAtTwiceThePoints(t *testing.T) {
+	// The float64 Gauss-Hermite rule of 80 points passes the test in the
+	// orthonormal basis beyond degree 159 (its error on p_160 is of the
+	// order 2^-80, far below 10u at 17 digits), but no 80-point rule
+	// integrates the square of its node polynomial (degree 160, zero at
+	// every node, positive integral): the degree is 159, with a note.
+	f, err := moments.NewFamily("hermite", nil, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := design.FamilySource{Family: f}
+	g, err := design.Gauss(context.Background(), m, design.Request{Points: 80})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Audit(context.Background(), m, g.Nodes, g.Weights, Options{SkipConditioning: true, SkipGenz: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.Degree != 159 || r.DegreeTested != 161 {
+		t.Errorf("degree %d tested to %d, want 159 tested to 161", r.Degree, r.DegreeTested)
+	}
+	if !strings.Contains(strings.Join(r.Notes, " "), "node polynomial") {
+		t.Errorf("no note on the cap: %q", r.Notes)
+	}
+}
