@@ -263,21 +263,22 @@ func runChunks(workers, chunks int, f func(j int)) {
 	wg.Wait()
 }
 
-// stieltjesChunk holds a chunk of points with pi_{k-1} and pi_k at each,
+// stieltjesChunk holds a chunk of points with sqrt(c) pi_{k-1} and
+// sqrt(c) pi_k at each (the recurrence is linear, so the scaling by the
+// square root of the mass carries through, and c pi_k^2 is one square),
 // and the chunk's sums of c pi_k^2 and c pi_k^2 x.
 type stieltjesChunk struct {
-	xs, cs, prev, cur []*precision.Real
-	norm, mom, q, t   *precision.Real
+	xs, prev, cur   []*precision.Real
+	norm, mom, q, t *precision.Real
 }
 
 func newStieltjesChunk(x, c []*big.Float, prec uint) *stieltjesChunk {
 	m := len(x)
-	ch := &stieltjesChunk{xs: precision.NewRealSlice(m, prec), cs: precision.NewRealSlice(m, prec),
+	ch := &stieltjesChunk{xs: precision.NewRealSlice(m, prec),
 		prev: precision.NewRealSlice(m, prec), cur: precision.NewRealSlice(m, prec)}
 	for i := 0; i < m; i++ {
 		ch.xs[i].SetBig(x[i])
-		ch.cs[i].SetBig(c[i])
-		ch.cur[i].SetInt64(1)
+		ch.cur[i].SetBig(c[i]).Sqrt(ch.cur[i])
 	}
 	r := precision.NewRealSlice(4, prec)
 	ch.norm, ch.mom, ch.q, ch.t = r[0], r[1], r[2], r[3]
@@ -302,7 +303,6 @@ func (ch *stieltjesChunk) step(k int, a, b *precision.Real) {
 			ch.prev[i], ch.cur[i] = ch.cur[i], ch.prev[i]
 		}
 		ch.q.Mul(ch.cur[i], ch.cur[i])
-		ch.q.Mul(ch.q, ch.cs[i])
 		ch.norm.Add(ch.norm, ch.q)
 		ch.mom.MulAdd(ch.q, ch.xs[i], ch.mom)
 	}
