@@ -9,7 +9,7 @@ import (
 )
 
 func TestElementJSONContract(t *testing.T) {
-	out, errs, code := run(t, t.TempDir(), "element", "--shape", "tetrahedron", "--degree", "3", "--digits", "30", "--format", "json")
+	out, errs, code := run(t, t.TempDir(), "element", "--shape", "tetrahedron", "--degree", "3", "--digits", "30", "--format", "json", "--product")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errs)
 	}

@@ -1,40 +1,31 @@
 package element
 
-import "sort"
+import (
+	"slices"
+	"sort"
+)
 
-// orbitSpan returns, for each orbit of st in parameter order, its first
-// parameter index, its number of parameters and its number of points.
-func orbitSpan(st Structure) (first, size, points []int) {
+// orbitSpan returns, for each orbit of st in parameter order, its type
+// index, its first parameter index and its number of points.
+func orbitSpan(sy *Symmetry, st Structure) (types, first, points []int) {
 	k := 0
-	add := func(n, p int) {
-		first, size, points = append(first, k), append(size, n), append(points, p)
-		k += n
-	}
-	for o := 0; o < st.Centroid; o++ {
-		add(1, 1)
-	}
-	for o := 0; o < st.Three; o++ {
-		add(2, 3)
-	}
-	for o := 0; o < st.Six; o++ {
-		add(3, 6)
+	for i, c := range st {
+		for o := 0; o < c; o++ {
+			types, first, points = append(types, i), append(first, k), append(points, sy.Types[i].Points())
+			k += 1 + sy.Types[i].Params
+		}
 	}
 	return
 }
 
 // dropOrbit returns the structure and parameters of v without orbit o.
-func dropOrbit(st Structure, v []float64, o int) (Structure, []float64) {
-	first, size, points := orbitSpan(st)
-	out := append(append([]float64(nil), v[:first[o]]...), v[first[o]+size[o]:]...)
-	switch points[o] {
-	case 1:
-		st.Centroid--
-	case 3:
-		st.Three--
-	default:
-		st.Six--
-	}
-	return st, out
+func dropOrbit(sy *Symmetry, st Structure, v []float64, o int) (Structure, []float64) {
+	types, first, _ := orbitSpan(sy, st)
+	size := 1 + sy.Types[types[o]].Params
+	out := append(append([]float64(nil), v[:first[o]]...), v[first[o]+size:]...)
+	nst := slices.Clone(st)
+	nst[types[o]]--
+	return nst, out
 }
 
 // eliminateTo runs the point elimination of H. Xiao and Z. Gimbutas ("A
@@ -43,21 +34,22 @@ func dropOrbit(st Structure, v []float64, o int) (Structure, []float64) {
 // to whole symmetry orbits: a rule of structure big (more orbits than
 // target, so its moment equations are underdetermined and easy to solve)
 // is solved by Levenberg-Marquardt from v; then, while it has more orbits
-// of some kind than target, the orbit of that kind with the least
+// of some type than target, the orbit of such a type with the least
 // significance (weight times points) is removed and the rest re-solved,
 // trying the three least significant in turn. ok reports whether target
 // was reached with an acceptable rule; v is then its parameters.
 func eliminateTo(sys0 *system, big, target Structure, v []float64) ([]float64, bool) {
+	sy := sys0.sy
 	st := big
-	sys := newSystem(st, sys0.deg)
+	sys := sys0.like(st)
 	if sys.levenbergMarquardt(v, 300) > 1e-13 {
 		return nil, false
 	}
-	for st != target {
-		first, _, points := orbitSpan(st)
+	for !slices.Equal(st, target) {
+		types, first, points := orbitSpan(sy, st)
 		var cand []int
 		for o := range first {
-			if (points[o] == 1 && st.Centroid > target.Centroid) || (points[o] == 3 && st.Three > target.Three) || (points[o] == 6 && st.Six > target.Six) {
+			if st[types[o]] > target[types[o]] {
 				cand = append(cand, o)
 			}
 		}
@@ -66,9 +58,9 @@ func eliminateTo(sys0 *system, big, target Structure, v []float64) ([]float64, b
 		})
 		moved := false
 		for _, o := range cand[:min(3, len(cand))] {
-			nst, nv := dropOrbit(st, v, o)
-			ns := newSystem(nst, sys0.deg)
-			if ns.levenbergMarquardt(nv, 300) < 1e-13 && (nst != target || acceptable(nst, nv)) {
+			nst, nv := dropOrbit(sy, st, v, o)
+			ns := sys0.like(nst)
+			if ns.levenbergMarquardt(nv, 300) < 1e-13 && (!slices.Equal(nst, target) || acceptable(sy, nst, nv)) {
 				st, v, moved = nst, nv, true
 				break
 			}
@@ -77,5 +69,5 @@ func eliminateTo(sys0 *system, big, target Structure, v []float64) ([]float64, b
 			return nil, false
 		}
 	}
-	return v, acceptable(st, v)
+	return v, acceptable(sy, st, v)
 }

@@ -13,38 +13,40 @@ import (
 
 // residualBig sets r[j] = sum_i w_i psi_j(x_i) - integral of psi_j for the
 // rule v of st, every operation rounded to prec bits.
-func residualBig(st Structure, v []*big.Float, d int, prec uint, r []*big.Float) {
-	xs, ys, ws := expandBig(st, v, prec)
+func residualBig(sy *Symmetry, st Structure, b *jacobiBasis, v []*big.Float, prec uint, r []*big.Float) {
+	pts, ws := expandBig(sy, st, v, prec)
 	for j := range r {
 		r[j] = new(big.Float).SetPrec(prec)
 	}
-	half := new(big.Float).SetPrec(prec).SetFloat64(0.5)
-	r[0].Sqrt(half).Neg(r[0])
+	// The integral of psi_0 = scale_0 is scale_0 times the measure, with
+	// the float64 scale_0 taken exactly.
+	mass := new(big.Float).SetPrec(prec).SetRat(sy.Shape.Measure())
+	r[0].Mul(mass, new(big.Float).SetPrec(prec).SetFloat64(b.scale[0])).Neg(r[0])
 	psi := make([]*big.Float, len(r))
 	t := new(big.Float).SetPrec(prec)
-	for i := range xs {
-		pkdBig(d, xs[i], ys[i], prec, psi)
+	for i := range pts {
+		b.valuesBig(pts[i], prec, psi)
 		for j := range r {
 			r[j].Add(r[j], t.Mul(ws[i], psi[j]))
 		}
 	}
 }
 
-// polish refines the parameters v0 (float64, a solution to about 1e-13)
-// of a degree-d rule of structure st at prec bits by Gauss-Newton steps
-// whose residual is formed at prec bits and whose Jacobian is the float64
-// one of the search, applied through its pseudo-inverse (gonum SVD,
-// singular values below 1e-10 of the largest dropped: the moment equations
-// in the full PKD basis are redundant, only invariants(d) of them are
-// independent). Each step multiplies the error by about the Jacobian's
-// relative error (1e-9), so the loop runs until the largest residual is
-// below 2^(20-prec), or below 2^(40-prec) and no longer falling (the
-// rounding floor), at most 8 + prec/20 steps. It returns the
-// refined parameters at prec bits, or an error when the residual stops
-// falling (the float64 solution was not a true one).
-func polish(ctx context.Context, st Structure, v0 []*big.Float, d int, prec uint) ([]*big.Float, error) {
+// polish refines the parameters v0 (a float64 solution to about 1e-13) of
+// a degree-d rule of structure st at prec bits by Gauss-Newton steps whose
+// residual is formed at prec bits and whose Jacobian is the float64 one of
+// the search, applied through its pseudo-inverse (gonum SVD, singular
+// values below 1e-10 of the largest dropped: the moment equations in the
+// full basis are redundant, only Equations(d) of them are independent).
+// Each step multiplies the error by about the Jacobian's relative error,
+// so the loop runs until the largest residual is below 2^(20-prec), or
+// below 2^(40-prec) and no longer falling (the rounding floor), at most
+// 8 + prec/20 steps. It returns the refined parameters at prec bits, or an
+// error when the residual stops falling (the float64 solution was not a
+// true one).
+func polish(ctx context.Context, sy *Symmetry, st Structure, v0 []*big.Float, d int, prec uint) ([]*big.Float, error) {
 	n := len(v0)
-	sys := newSystem(st, d)
+	sys := newSystem(sy, st, d)
 	v := make([]*big.Float, n)
 	v64 := make([]float64, n)
 	for i := range v0 {
@@ -56,7 +58,7 @@ func polish(ctx context.Context, st Structure, v0 []*big.Float, d int, prec uint
 	sys.eval(v64, r64, J)
 	var svd mat.SVD
 	if !svd.Factorize(J, mat.SVDThin) {
-		return nil, fmt.Errorf("the Jacobian of the degree-%d triangle rule could not be factorised", d)
+		return nil, fmt.Errorf("the Jacobian of the degree-%d %s rule could not be factorised", d, sy.Shape)
 	}
 	sv := svd.Values(nil)
 	rank := 0
@@ -77,7 +79,7 @@ func polish(ctx context.Context, st Structure, v0 []*big.Float, d int, prec uint
 		if err := ctx.Err(); err != nil {
 			return nil, err
 		}
-		residualBig(st, v, d, prec, r)
+		residualBig(sy, st, sys.basis, v, prec, r)
 		// The residual is scaled to float64 range before the solve; the
 		// step is scaled back at prec bits.
 		var mx float64
@@ -101,32 +103,32 @@ func polish(ctx context.Context, st Structure, v0 []*big.Float, d int, prec uint
 			v[i].Sub(v[i], dv)
 		}
 	}
-	return nil, fmt.Errorf("the degree-%d triangle rule of %d points did not converge at %d bits", d, st.Points(), prec)
+	return nil, fmt.Errorf("the degree-%d %s rule of %d points did not converge at %d bits", d, sy.Shape, st.Points(sy), prec)
 }
 
-// symmetricRule polishes the parameters of a fully symmetric triangle rule
-// of degree d at two precisions, confirms every printed coordinate and
+// symmetricRule polishes the parameters of a fully symmetric rule of
+// degree d at two precisions, confirms every printed coordinate and
 // weight (design.ConfirmPrinted) and verifies the printed rule (finish).
 // digits is as in Request.
-func symmetricRule(ctx context.Context, st Structure, params []*big.Float, d, digits int) (*Rule, []*big.Float, error) {
+func symmetricRule(ctx context.Context, sy *Symmetry, st Structure, params []*big.Float, d, digits int) (*Rule, []*big.Float, error) {
 	base := digits
 	if base == 0 {
 		base = 17
 	}
-	r := &Rule{Shape: Triangle, Kind: "symmetric", Digits: digits, Requested: d,
-		Method: fmt.Sprintf("fully symmetric (S3 orbits: %d centroid, %d of 3 points, %d of 6 points); Levenberg-Marquardt on the PKD moment equations, Gauss-Newton polish at extended precision", st.Centroid, st.Three, st.Six)}
+	r := &Rule{Shape: sy.Shape, Kind: "symmetric", Digits: digits, Requested: d,
+		Method: fmt.Sprintf("fully symmetric (%s orbits: %s); Levenberg-Marquardt on the orthonormal-basis moment equations, Gauss-Newton polish at extended precision", sy.Group, st.Describe(sy))}
 	for guard := 8; guard <= 8+3*16; guard += 16 {
-		p1 := precision.WorkingPrec(base+guard, st.Points())
+		p1 := precision.WorkingPrec(base+guard, st.Points(sy))
 		p2 := precision.RaisePrec(p1)
-		v1, err := polish(ctx, st, params, d, p1)
+		v1, err := polish(ctx, sy, st, params, d, p1)
 		if err != nil {
 			return nil, nil, err
 		}
-		v2, err := polish(ctx, st, v1, d, p2)
+		v2, err := polish(ctx, sy, st, v1, d, p2)
 		if err != nil {
 			return nil, nil, err
 		}
-		lo, hi := pack(st, v1, p1), pack(st, v2, p2)
+		lo, hi := pack(sy, st, v1, p1), pack(sy, st, v2, p2)
 		nodes, weights, ok := confirmAll(lo, hi, digits, p2)
 		if !ok {
 			continue
@@ -136,14 +138,10 @@ func symmetricRule(ctx context.Context, st Structure, params []*big.Float, d, di
 		out, err := finish(ctx, r, d+1, true)
 		return out, v2, err
 	}
-	return nil, nil, fmt.Errorf("the symmetric triangle rule of degree %d could not be confirmed to %d digits by a second computation at higher precision", d, base)
+	return nil, nil, fmt.Errorf("the symmetric %s rule of degree %d could not be confirmed to %d digits by a second computation at higher precision", sy.Shape, d, base)
 }
 
-func pack(st Structure, v []*big.Float, prec uint) *assembled {
-	xs, ys, ws := expandBig(st, v, prec)
-	a := &assembled{wts: ws}
-	for i := range xs {
-		a.pts = append(a.pts, []*big.Float{xs[i], ys[i]})
-	}
-	return a
+func pack(sy *Symmetry, st Structure, v []*big.Float, prec uint) *assembled {
+	pts, ws := expandBig(sy, st, v, prec)
+	return &assembled{pts: pts, wts: ws}
 }

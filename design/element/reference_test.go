@@ -66,7 +66,7 @@ func TestSymmetricDegree6Dunavant(t *testing.T) {
 	for _, v := range []float64{0.116786275726379 / 2, 0.249286745170910, 0.050844906370207 / 2, 0.063089014491502, 0.082851075618374 / 2, 0.053145049844817, 0.310352451033784} {
 		params = append(params, big.NewFloat(v))
 	}
-	r, _, err := symmetricRule(context.Background(), Structure{0, 2, 1}, params, 6, 30)
+	r, _, err := symmetricRule(context.Background(), SymmetryOf(Triangle), Structure{0, 2, 1}, params, 6, 30)
 	if err != nil {
 		t.Fatal(err)
 	}

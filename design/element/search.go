@@ -2,6 +2,7 @@ package element
 
 import (
 	"context"
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"sort"
@@ -9,104 +10,112 @@ import (
 	"gonum.org/v1/gonum/mat"
 )
 
-// system holds the float64 moment equations of one structure and degree.
+// system holds the float64 moment equations of one structure and degree:
+// r_j = sum_i w_i psi_j(x_i) - integral of psi_j over the orthonormal
+// basis psi_j of degree deg (jacobiBasis), and their Jacobian.
 type system struct {
-	st   Structure
-	deg  int
-	m    int       // equations: pkdLen(deg)
-	buf  []float64 // pkd values at one point
-	sums [][]float64
+	sy     *Symmetry
+	st     Structure
+	deg    int
+	m, n   int
+	basis  *jacobiBasis
+	orbits []*OrbitType
+	mass   float64 // integral of psi_0
+	x      []float64
+	val    []float64
+	grad   []float64
+	sum    []float64
+	gsum   []float64 // m x 3
+	// proj, when set, replaces the m basis equations by its r invariant
+	// ones (m is then r; see invariantBasis).
+	proj *invariantBasis
 }
 
-func newSystem(st Structure, deg int) *system {
-	m := pkdLen(deg)
-	return &system{st: st, deg: deg, m: m, buf: make([]float64, m)}
+func newSystem(sy *Symmetry, st Structure, deg int) *system {
+	b := basisFor(sy.Shape, deg)
+	dim := sy.Shape.Dim()
+	vol, _ := sy.Shape.Measure().Float64()
+	return &system{sy: sy, st: st, deg: deg, m: b.m, n: st.Unknowns(sy), basis: b,
+		orbits: st.orbitList(sy), mass: vol * b.scale[0],
+		x: make([]float64, dim), val: make([]float64, b.m), grad: make([]float64, b.m*dim),
+		sum: make([]float64, b.m), gsum: make([]float64, b.m*3)}
 }
 
-// orbitSum sets out[j] to the sum of psi_j over the points of an orbit:
-// kind 0 the centroid, 1 a 3-orbit (a), 2 a 6-orbit (a, b).
-func (s *system) orbitSum(kind int, a, b float64, out []float64) {
-	for j := range out {
-		out[j] = 0
-	}
-	var pts [][2]float64
-	switch kind {
-	case 0:
-		pts = [][2]float64{{1.0 / 3, 1.0 / 3}}
-	case 1:
-		c := 1 - 2*a
-		pts = [][2]float64{{a, a}, {a, c}, {c, a}}
-	default:
-		c := 1 - a - b
-		pts = [][2]float64{{a, b}, {b, a}, {a, c}, {c, a}, {b, c}, {c, b}}
-	}
-	for _, p := range pts {
-		pkd64(s.deg, p[0], p[1], s.buf)
-		for j, v := range s.buf {
-			out[j] += v
-		}
-	}
-}
-
-// eval sets r to the residuals sum_i w_i psi_j(x_i) - integral of psi_j
-// (1/sqrt(2) for j = 0, else 0) and, when J is not nil, J to their
-// Jacobian with respect to v: exact in the weights, central differences
-// (step 1e-6, error about 1e-10 relative) in the coordinates.
+// eval sets r to the residuals of v and, when J is not nil, J (m x n) to
+// their Jacobian: exact in the weights; in the coordinates the basis
+// gradients times the constant Jacobian of the orbit's affine points.
 func (s *system) eval(v []float64, r []float64, J *mat.Dense) {
+	if s.proj != nil {
+		s.evalProjected(v, r, J)
+		return
+	}
 	for j := range r {
 		r[j] = 0
 	}
-	r[0] = -1 / math.Sqrt2
-	col := 0
-	tmp := make([]float64, s.m)
-	tmp2 := make([]float64, s.m)
-	add := func(w float64, sum []float64) {
-		for j := range r {
-			r[j] += w * sum[j]
-		}
-	}
-	const h = 1e-6
-	deriv := func(kind int, a, b, da, db, w float64) {
-		s.orbitSum(kind, a+da, b+db, tmp)
-		s.orbitSum(kind, a-da, b-db, tmp2)
-		for j := range tmp {
-			J.Set(j, col, w*(tmp[j]-tmp2[j])/(2*h))
-		}
-		col++
+	r[0] = -s.mass
+	dim := s.sy.Shape.Dim()
+	var jd []float64
+	if J != nil {
+		jd = J.RawMatrix().Data
 	}
 	k := 0
-	sum := make([]float64, s.m)
-	if s.st.Centroid == 1 {
-		s.orbitSum(0, 0, 0, sum)
-		add(v[0], sum)
-		if J != nil {
-			J.SetCol(col, sum)
-			col++
+	for _, o := range s.orbits {
+		w := v[k]
+		t := v[k+1 : k+1+o.Params]
+		for j := range s.sum {
+			s.sum[j] = 0
 		}
-		k = 1
+		if J != nil {
+			for j := range s.gsum {
+				s.gsum[j] = 0
+			}
+		}
+		for p := range o.c64 {
+			s.setPoint(o, p, t)
+			if J == nil {
+				s.basis.values64(s.x, s.val)
+				for j, y := range s.val {
+					s.sum[j] += y
+				}
+				continue
+			}
+			s.basis.eval64(s.x, s.val, s.grad)
+			A := o.A64[p]
+			for j, y := range s.val {
+				s.sum[j] += y
+				g := s.grad[j*dim : j*dim+dim]
+				for q := 0; q < o.Params; q++ {
+					d := 0.0
+					for c := 0; c < dim; c++ {
+						d += g[c] * A[c][q]
+					}
+					s.gsum[j*3+q] += d
+				}
+			}
+		}
+		for j := range r {
+			r[j] += w * s.sum[j]
+		}
+		if J != nil {
+			for j := 0; j < s.m; j++ {
+				row := jd[j*s.n : (j+1)*s.n]
+				row[k] = s.sum[j]
+				for q := 0; q < o.Params; q++ {
+					row[k+1+q] = w * s.gsum[j*3+q]
+				}
+			}
+		}
+		k += 1 + o.Params
 	}
-	for o := 0; o < s.st.Three; o++ {
-		w, a := v[k], v[k+1]
-		s.orbitSum(1, a, 0, sum)
-		add(w, sum)
-		if J != nil {
-			J.SetCol(col, sum)
-			col++
-			deriv(1, a, 0, h, 0, w)
+}
+
+// setPoint sets s.x to point p of orbit o with parameters t.
+func (s *system) setPoint(o *OrbitType, p int, t []float64) {
+	for c := range s.x {
+		s.x[c] = o.c64[p][c]
+		for q, tq := range t {
+			s.x[c] += o.A64[p][c][q] * tq
 		}
-		k += 2
-	}
-	for o := 0; o < s.st.Six; o++ {
-		w, a, b := v[k], v[k+1], v[k+2]
-		s.orbitSum(2, a, b, sum)
-		add(w, sum)
-		if J != nil {
-			J.SetCol(col, sum)
-			col++
-			deriv(2, a, b, h, 0, w)
-			deriv(2, a, b, 0, h, w)
-		}
-		k += 3
 	}
 }
 
@@ -124,7 +133,7 @@ func norm2(r []float64) float64 {
 // 1944; D. W. Marquardt, "An algorithm for least-squares estimation of
 // nonlinear parameters", J. SIAM 11, 1963) with Marquardt's diagonal
 // scaling, in float64. It returns the final |r|; it gives up early when a
-// point strays far outside the triangle.
+// point strays far outside the element or the residual stalls.
 func (s *system) levenbergMarquardt(v []float64, maxIter int) float64 {
 	n := len(v)
 	r := make([]float64, s.m)
@@ -133,8 +142,11 @@ func (s *system) levenbergMarquardt(v []float64, maxIter int) float64 {
 	trial := make([]float64, n)
 	var A mat.SymDense
 	A.ReuseAsSym(n)
+	M := mat.NewSymDense(n, nil)
 	g := mat.NewVecDense(n, nil)
 	d := mat.NewVecDense(n, nil)
+	rv := mat.NewVecDense(s.m, r)
+	var ch mat.Cholesky
 	lambda := 1e-3
 	s.eval(v, r, J)
 	cost := norm2(r)
@@ -150,15 +162,13 @@ func (s *system) levenbergMarquardt(v []float64, maxIter int) float64 {
 			mark = cost
 		}
 		A.SymOuterK(1, J.T())
-		g.MulVec(J.T(), mat.NewVecDense(s.m, r))
+		g.MulVec(J.T(), rv)
 		improved := false
 		for lambda < 1e12 {
-			M := mat.NewSymDense(n, nil)
 			M.CopySym(&A)
 			for i := 0; i < n; i++ {
 				M.SetSym(i, i, A.At(i, i)*(1+lambda)+1e-14)
 			}
-			var ch mat.Cholesky
 			if ch.Factorize(M) && ch.SolveVecTo(d, g) == nil {
 				for i := range trial {
 					trial[i] = v[i] - d.AtVec(i)
@@ -174,7 +184,7 @@ func (s *system) levenbergMarquardt(v []float64, maxIter int) float64 {
 			}
 			lambda *= 4
 		}
-		if !improved || !inside64(s.st, v, -0.5) {
+		if !improved || !roughlyInside(s.sy, s.st, v, -0.5) {
 			return cost
 		}
 		s.eval(v, r, J)
@@ -182,113 +192,154 @@ func (s *system) levenbergMarquardt(v []float64, maxIter int) float64 {
 	return cost
 }
 
-// start draws a random starting point for st: every weight the area over
-// the number of points, 3-orbit coordinates in (0.02, 0.48), 6-orbit
-// barycentric coordinates uniform on the triangle.
-func start(st Structure, rng *rand.Rand) []float64 {
-	w := 0.5 / float64(st.Points())
+// start draws a random starting point for st: every weight the measure
+// over the number of points; each orbit's coordinates uniform in the
+// element's bounding box, drawn again until the orbit lies inside with a
+// margin of 1% and its points are distinct.
+func start(sy *Symmetry, st Structure, rng *rand.Rand) []float64 {
+	vol, _ := sy.Shape.Measure().Float64()
+	w := vol / float64(st.Points(sy))
 	var v []float64
-	if st.Centroid == 1 {
+	for _, o := range st.orbitList(sy) {
 		v = append(v, w)
-	}
-	for o := 0; o < st.Three; o++ {
-		v = append(v, w, 0.02+0.46*rng.Float64())
-	}
-	for o := 0; o < st.Six; o++ {
-		u1, u2 := rng.Float64(), rng.Float64()
-		if u1+u2 > 1 {
-			u1, u2 = 1-u1, 1-u2
+		t := make([]float64, o.Params)
+		one := Structure(make([]int, len(sy.Types)))
+		for i := range sy.Types {
+			if &sy.Types[i] == o {
+				one[i] = 1
+			}
 		}
-		v = append(v, w, u1, u2)
+		for try := 0; try < 10000; try++ {
+			for q := range t {
+				c := 0
+				for c < len(o.A64[0]) && o.A64[0][c][q] == 0 {
+					c++
+				}
+				t[q] = sy.lo[c] + (sy.hi[c]-sy.lo[c])*rng.Float64()
+			}
+			if roughlyInside(sy, one, append([]float64{w}, t...), 0.01) && acceptable(sy, one, append([]float64{w}, t...)) {
+				break
+			}
+		}
+		v = append(v, t...)
 	}
 	return v
 }
 
-// acceptable reports whether v is a rule with positive weights, points
-// strictly inside and orbits that do not degenerate (a 3-orbit at the
-// centroid, a 6-orbit with two equal barycentric coordinates).
-func acceptable(st Structure, v []float64) bool {
-	if !inside64(st, v, 1e-9) {
-		return false
-	}
-	k := st.Centroid
-	for o := 0; o < st.Three; o++ {
-		if math.Abs(v[k+1]-1.0/3) < 1e-6 {
-			return false
-		}
-		k += 2
-	}
-	for o := 0; o < st.Six; o++ {
-		a, b := v[k+1], v[k+2]
-		c := 1 - a - b
-		if math.Abs(a-b) < 1e-6 || math.Abs(a-c) < 1e-6 || math.Abs(b-c) < 1e-6 {
-			return false
-		}
-		k += 3
-	}
-	return true
-}
-
-// structures lists the orbit structures with exactly p points and at least
-// as many unknowns as the invariant moment equations of degree d, those
-// with fewest unknowns first.
-func structures(d, p int) []Structure {
+// Structures lists the orbit structures of sy with exactly p points and at
+// least as many unknowns as Equations(d), those with fewest unknowns
+// first (then those with fewer orbits of the first types).
+func (sy *Symmetry) Structures(d, p int) []Structure {
+	need := sy.Equations(d)
 	var out []Structure
-	need := invariants(d)
-	for c := 0; c <= 1; c++ {
-		for six := 0; 6*six+c <= p; six++ {
-			rest := p - c - 6*six
-			if rest%3 != 0 {
-				continue
+	cur := make([]int, len(sy.Types))
+	var rec func(i, left int)
+	rec = func(i, left int) {
+		if i == len(sy.Types) {
+			if left == 0 {
+				st := Structure(append([]int(nil), cur...))
+				if st.Unknowns(sy) >= need {
+					out = append(out, st)
+				}
 			}
-			st := Structure{c, rest / 3, six}
-			if st.Unknowns() >= need {
-				out = append(out, st)
-			}
+			return
 		}
+		o := sy.Types[i]
+		maxc := left / o.Points()
+		if o.Params == 0 {
+			maxc = min(maxc, 1)
+		}
+		for c := 0; c <= maxc; c++ {
+			cur[i] = c
+			rec(i+1, left-c*o.Points())
+		}
+		cur[i] = 0
 	}
-	sort.SliceStable(out, func(i, j int) bool { return out[i].Unknowns() < out[j].Unknowns() })
+	rec(0, p)
+	sort.SliceStable(out, func(i, j int) bool { return out[i].Unknowns(sy) < out[j].Unknowns(sy) })
 	return out
 }
 
 // SearchResult is a fully symmetric rule found in float64.
 type SearchResult struct {
+	Shape     Shape
 	Structure Structure
 	Params    []float64 // the parameter vector (see expand64)
 	Residual  float64   // |r| of the moment equations in the orthonormal basis
 	Starts    int       // starts tried
 }
 
-// SearchTriangle looks for a fully symmetric triangle rule of degree d with
-// p points, positive weights and interior points, on the moment equations
-// in the orthonormal PKD basis. For each orbit structure of p points
-// (structures, fewest unknowns first) in turn it makes two starts: one by
-// orbit elimination from a larger rule (eliminateTo, after Xiao and
-// Gimbutas 2010) and one by Levenberg-Marquardt directly on the structure,
-// each from a random start; at most maxStarts starts in all. The starts are
-// drawn from a PCG stream seeded by seed, d and p, so the result is the same
-// for the same arguments. ok is false when no start succeeded.
-func SearchTriangle(ctx context.Context, d, p int, seed uint64, maxStarts int) (SearchResult, bool, error) {
-	sts := structures(d, p)
-	if len(sts) == 0 {
-		return SearchResult{}, false, nil
+// Search looks for a fully symmetric rule of degree d with p points,
+// positive weights and interior points on the element s, on the moment
+// equations in the orthonormal basis. The structures of p points
+// (Structures) are visited in rounds; a structure with e more unknowns
+// than the fewest any of them has is visited in every (1+e^2)-th round
+// only, since the rules of fewest points almost always have the fewest
+// unknowns. Each visit makes two starts: one by orbit elimination from a
+// rule with two more orbits of the most general type (eliminateTo, after
+// Xiao and Gimbutas 2010) and one by Levenberg-Marquardt directly on the
+// structure, each from a random start; at most maxStarts starts in all.
+// The starts are drawn from a PCG stream seeded by seed, d and p, so the
+// result is the same for the same arguments. ok is false when no start
+// succeeded.
+func Search(ctx context.Context, s Shape, d, p int, seed uint64, maxStarts int) (SearchResult, bool, error) {
+	return SearchWith(ctx, s, d, p, SearchOptions{Seed: seed, MaxStarts: maxStarts})
+}
+
+// SearchOptions tunes SearchWith.
+type SearchOptions struct {
+	Seed      uint64
+	MaxStarts int
+	// Projected solves the invariant equations only, each orbit evaluated
+	// at one point (invariantBasis): the same solutions, fewer and cheaper
+	// equations, another path through the starts.
+	Projected bool
+	// Uniform visits every structure in every round: slower to the rules
+	// of fewest unknowns, but it reaches the structures with many spare
+	// unknowns (easy to solve, hard to keep positive and inside) as often,
+	// which is what finds a rule above the published count.
+	Uniform bool
+}
+
+// SearchWith is Search with options.
+func SearchWith(ctx context.Context, s Shape, d, p int, opt SearchOptions) (SearchResult, bool, error) {
+	seed, maxStarts := opt.Seed, opt.MaxStarts
+	sy := SymmetryOf(s)
+	if sy == nil {
+		return SearchResult{}, false, fmt.Errorf("the %s has no symmetric rules to search", s)
 	}
+	sts := sy.Structures(d, p)
+	if len(sts) == 0 {
+		return SearchResult{Shape: s}, false, nil
+	}
+	least := sts[0].Unknowns(sy)
 	rng := rand.New(rand.NewPCG(seed, uint64(d)<<32|uint64(p)))
 	tries := 0
-	for tries < maxStarts {
+	for round := 0; tries < maxStarts; round++ {
 		for _, st := range sts {
+			e := st.Unknowns(sy) - least
+			if opt.Uniform {
+				e = 0
+			}
+			if round%(1+e*e) != 0 {
+				continue
+			}
 			if err := ctx.Err(); err != nil {
 				return SearchResult{}, false, err
 			}
-			sys := newSystem(st, d)
+			sys := newSystem(sy, st, d)
+			if opt.Projected {
+				sys = newProjectedSystem(sy, st, d)
+			}
 			tries++
-			big := Structure{st.Centroid, st.Three + 1, st.Six + 2}
-			if v, ok := eliminateTo(sys, big, st, start(big, rng)); ok {
+			big := append(Structure(nil), st...)
+			big[len(big)-1] += 2
+			if v, ok := eliminateTo(sys, big, st, start(sy, big, rng)); ok {
 				return result(sys, v, tries), true, nil
 			}
 			tries++
-			v := start(st, rng)
-			if sys.levenbergMarquardt(v, 300) < 1e-13 && acceptable(st, v) {
+			v := start(sy, st, rng)
+			if sys.levenbergMarquardt(v, 300) < 1e-13 && acceptable(sy, st, v) {
 				return result(sys, v, tries), true, nil
 			}
 			if tries >= maxStarts {
@@ -296,11 +347,11 @@ func SearchTriangle(ctx context.Context, d, p int, seed uint64, maxStarts int) (
 			}
 		}
 	}
-	return SearchResult{Starts: tries}, false, nil
+	return SearchResult{Shape: s, Starts: tries}, false, nil
 }
 
 func result(sys *system, v []float64, tries int) SearchResult {
 	r := make([]float64, sys.m)
 	sys.eval(v, r, nil)
-	return SearchResult{sys.st, v, norm2(r), tries}
+	return SearchResult{sys.sy.Shape, sys.st, v, norm2(r), tries}
 }

@@ -1,14 +1,15 @@
 package element
 
-import (
-	"math"
-	"math/big"
-)
+import "math"
 
 // pkdLen is the number of polynomials of total degree <= d in two
 // variables, (d+1)(d+2)/2.
 func pkdLen(d int) int { return (d + 1) * (d + 2) / 2 }
 
+// pkd64 is the closed form of the PKD basis on the triangle, written
+// separately from the generic jacobiBasis as the reference it is tested
+// against (TestBasisIsPKD).
+//
 // pkd64 sets out[0:pkdLen(d)] to the orthonormal Proriol-Koornwinder-Dubiner
 // polynomials psi_ik, i+k <= d, on the reference triangle (0,0),(1,0),(0,1)
 // at (x, y), in float64, ordered by i for each total degree: out[j] holds
@@ -46,54 +47,6 @@ func pkd64(d int, x, y float64, out []float64) {
 				p0, p1 = p1, ((2*n+al-1)*((2*n+al)*(2*n+al-2)*b+al*al)*p1-2*(n+al-1)*(n-1)*(2*n+al)*p0)/c
 			}
 			out[pkdLen(i+k-1)+i] = math.Sqrt(float64((2*i+1)*(2*i+2*k+2))) * q1 * p1
-		}
-	}
-}
-
-// pkdBig is pkd64 at prec bits (big.Float, every operation rounded to
-// prec): out[j] is set (allocated when nil) for j < pkdLen(d). The values
-// carry all but about log2(d)+4 of their prec bits.
-func pkdBig(d int, x, y *big.Float, prec uint, out []*big.Float) {
-	nf := func() *big.Float { return new(big.Float).SetPrec(prec) }
-	num := func(v float64) *big.Float { return nf().SetFloat64(v) }
-	one := num(1)
-	s := nf().Sub(one, y)
-	t := nf().Add(x, x)
-	t.Sub(t, one).Add(t, y)
-	b := nf().Add(y, y)
-	b.Sub(b, one)
-	s2 := nf().Mul(s, s)
-	q0, q1 := nf(), num(1)
-	tmp, tmp2 := nf(), nf()
-	for i := 0; i <= d; i++ {
-		if i > 0 {
-			tmp.Mul(t, q1).Mul(tmp, num(float64(2*i-1)))
-			tmp2.Mul(s2, q0).Mul(tmp2, num(float64(i-1)))
-			q0, q1 = q1, nf().Quo(tmp.Sub(tmp, tmp2), num(float64(i)))
-		}
-		al := float64(2*i + 1)
-		p0, p1 := nf(), num(1)
-		for k := 0; i+k <= d; k++ {
-			if k == 1 {
-				v := nf().Sub(b, one)
-				v.Mul(v, num((al+2)/2)).Add(v, num(al+1))
-				p0, p1 = p1, v
-			} else if k > 1 {
-				n := float64(k)
-				c := num(2 * n * (n + al) * (2*n + al - 2))
-				v := nf().Mul(b, num((2*n+al)*(2*n+al-2)))
-				v.Add(v, num(al*al)).Mul(v, num(2*n+al-1)).Mul(v, p1)
-				tmp.Mul(p0, num(2*(n+al-1)*(n-1)*(2*n+al)))
-				v.Sub(v, tmp).Quo(v, c)
-				p0, p1 = p1, v
-			}
-			j := pkdLen(i+k-1) + i
-			if out[j] == nil {
-				out[j] = nf()
-			}
-			nrm := nf().SetInt64(int64((2*i + 1) * (2*i + 2*k + 2)))
-			nrm.Sqrt(nrm)
-			out[j].Mul(nrm, q1).Mul(out[j], p1)
 		}
 	}
 }
