@@ -2,20 +2,30 @@ package rulefile
 
 import (
 	"fmt"
+	"strings"
 
 	"quadwright/design/element"
 )
 
 // FromElementRule makes the file of a built element rule: domain.shape is
-// the element's name, domain.vertices its vertices, weight "1", and every
-// node an array of coordinate strings. program is "quadwright <version>".
+// the element's name, domain.vertices its vertices, weight the rule's
+// weight expression ("1" for an unweighted rule, "moments(FILE)" for one
+// built from a moment table), and every node an array of coordinate
+// strings. program is "quadwright <version>".
 func FromElementRule(r *element.Rule, program string) *File {
+	weight, measure := "1", "1 on the reference "+r.Shape.String()
+	if r.Weight != "" {
+		weight, measure = r.Weight, r.Weight+" on the reference "+r.Shape.String()
+	}
+	if r.MomentFile != "" {
+		measure = "the weight whose moments are listed in " + r.MomentFile + ", on the reference " + r.Shape.String()
+	}
 	f := &File{
 		Format: FormatName, Kind: r.Kind,
 		Domain: Domain{Shape: r.Shape.String(), Vertices: r.Shape.Vertices()},
-		Weight: "1", Points: r.Points(), Degree: r.Degree, Digits: r.Digits,
+		Weight: weight, Points: r.Points(), Degree: r.Degree, Digits: r.Digits,
 		Weights: append([]string(nil), r.Weights...),
-		Measure: "1 on the reference " + r.Shape.String(),
+		Measure: measure,
 		Provenance: &Provenance{
 			Program: program, Method: r.Method,
 			WorkingPrecision: r.WorkingPrec, CheckPrecision: r.CheckPrec,
@@ -27,4 +37,23 @@ func FromElementRule(r *element.Rule, program string) *File {
 		f.Nodes[i] = append(Node(nil), p...)
 	}
 	return f
+}
+
+// ElementShape reports whether the file is an element rule (domain.shape
+// names an element other than a plain interval) and which. A shape that is
+// neither "interval" nor an element, or nodes whose coordinate count does
+// not fit the element, is an error naming the file.
+func (f *File) ElementShape(name string) (element.Shape, bool, error) {
+	sh := strings.TrimSpace(f.Domain.Shape)
+	if sh == "" || sh == "interval" {
+		return 0, false, nil
+	}
+	s, err := element.ParseShape(sh)
+	if err != nil {
+		return 0, false, fmt.Errorf("rule file %s: domain.shape %q is neither \"interval\" nor one of %s", name, f.Domain.Shape, strings.Join(element.ShapeNames, ", "))
+	}
+	if f.Dim() != s.Dim() {
+		return 0, false, fmt.Errorf("rule file %s: its nodes have %d coordinates, but a rule on the %s needs %d", name, f.Dim(), s, s.Dim())
+	}
+	return s, true, nil
 }

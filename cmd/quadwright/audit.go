@@ -11,6 +11,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"quadwright/design"
+	"quadwright/design/element"
 	"quadwright/precision"
 	"quadwright/rulefile"
 	"quadwright/stability"
@@ -27,6 +28,7 @@ type auditOptions struct {
 	output    string
 	failOn    string
 	quick     bool
+	shape     string
 }
 
 func newAuditCommand() *cobra.Command {
@@ -46,14 +48,27 @@ The measure is given as for build (--family with --alpha/--beta/--interval,
 --weight with --interval, --moments, --measure); by default it is the rule
 file's own, and for a table without one, weight 1 on --interval. Values are read as exact decimals; each is taken as known to D
 digits, D the most significant digits of any value (--tolerance sets u
-instead of 10^(1-D)).`,
+instead of 10^(1-D)).
+
+A rule on a reference element (a rule file whose domain.shape names one, or a
+table of "x y [z] weight" lines with --shape) is audited on the element: the
+degree (every monomial of total degree up to d integrated, against the exact
+integrals for weight 1, the moments of the file's weight or of --weight, an
+expression in x, y, z, or a --moments table of "a b [c] value" lines), negative
+weights, the stability factor and lost digits, nodes outside the closed element
+and on its boundary, and the symmetry: the subgroup of the element's symmetry
+group under which the rule is invariant to its own digits.`,
 		Example: `  quadwright build --family legendre --points 6 --digits 30 --format json -o g6.json
   quadwright audit g6.json
   quadwright audit g6.json --format json --fail-on 'negative,outside,degree<11'
   quadwright audit g6.json --format html -o g6.html
   printf '0 1/6\n0.5 2/3\n1 1/6\n' > simpson.txt
   quadwright audit simpson.txt --interval 0,1 --quick
-  quadwright audit simpson.txt --interval 0,1 --quick --fail-on 'degree<4'   # exits 2`,
+  quadwright audit simpson.txt --interval 0,1 --quick --fail-on 'degree<4'   # exits 2
+  quadwright element --shape triangle --degree 7 --format json -o tri7.json
+  quadwright audit tri7.json
+  quadwright element --shape triangle --degree 4 --weight x --format json -o tri-x4.json
+  quadwright audit tri-x4.json --format json --fail-on 'negative,outside,degree<4'`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			return runAudit(cmd.Context(), o, args[0], cmd)
@@ -69,6 +84,7 @@ instead of 10^(1-D)).`,
 	f.StringVarP(&o.output, "output", "o", "", "write the report to this file (atomically) instead of standard output")
 	f.StringVar(&o.failOn, "fail-on", "", "comma-separated conditions that make the exit status 2: negative, outside, degree<K, lost>L (L in decimal digits)")
 	f.BoolVar(&o.quick, "quick", false, "leave out the test integrands and the matrix conditioning")
+	f.StringVar(&o.shape, "shape", "", "audit the rule on this reference element ("+strings.Join(element.ShapeNames, ", ")+"); default: the rule file's domain.shape (needed for a text table of \"x y [z] weight\" lines)")
 	return cmd
 }
 
@@ -86,12 +102,9 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 	}
 	opt := stability.Options{SkipGenz: o.quick, SkipConditioning: o.quick}
 	if s := strings.TrimSpace(o.tolerance); s != "" {
-		u, err := precision.ParseExact(s)
+		u, err := parseTolerance(s)
 		if err != nil {
-			return fmt.Errorf("--tolerance: %v", err)
-		}
-		if u.Sign() <= 0 || u.Cmp(big.NewRat(1, 1)) >= 0 {
-			return fmt.Errorf("--tolerance %s: the relative accuracy must lie strictly between 0 and 1", s)
+			return err
 		}
 		opt.Unit = u
 	}
@@ -106,8 +119,24 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 	if err != nil {
 		return err
 	}
+	shape, isElement, err := file.ElementShape(path)
+	if err != nil {
+		return err
+	}
+	if strings.TrimSpace(o.shape) != "" {
+		if shape, err = element.ParseShape(o.shape); err != nil {
+			return err
+		}
+		if file.Dim() != shape.Dim() {
+			return fmt.Errorf("rule file %s: its nodes have %d coordinates, but a rule on the %s needs %d", path, file.Dim(), shape, shape.Dim())
+		}
+		isElement = true
+	}
+	if isElement {
+		return runElementAudit(ctx, o, file, shape, path, format, checks, opt.Unit, opt.MaxDegree, cmd)
+	}
 	if file.Dim() != 1 {
-		return fmt.Errorf("rule file %s: its nodes have %d coordinates; audit handles one-dimensional rules", path, file.Dim())
+		return fmt.Errorf("rule file %s: its nodes have %d coordinates and it names no element; give the element with --shape", path, file.Dim())
 	}
 	m, err := o.resolveAuditMeasure(ctx, file, path)
 	if err != nil {
@@ -139,7 +168,19 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 	if err != nil {
 		return err
 	}
-	return checkThresholds(checks, rep)
+	return checkThresholds(checks, auditFacts{rep.NegativeWeights, rep.NodesOutside, rep.Degree, float64(rep.LostDigits), "interval"})
+}
+
+// parseTolerance reads --tolerance: u with 0 < u < 1, decimal or p/q.
+func parseTolerance(s string) (*big.Rat, error) {
+	u, err := precision.ParseExact(s)
+	if err != nil {
+		return nil, fmt.Errorf("--tolerance: %v", err)
+	}
+	if u.Sign() <= 0 || u.Cmp(big.NewRat(1, 1)) >= 0 {
+		return nil, fmt.Errorf("--tolerance %s: the relative accuracy must lie strictly between 0 and 1", s)
+	}
+	return u, nil
 }
 
 // resolveAuditMeasure picks the measure: the measure flags when any is
@@ -222,9 +263,16 @@ func parseFailOn(s string) ([]failCheck, error) {
 	return out, nil
 }
 
+// auditFacts are what --fail-on looks at in a report.
+type auditFacts struct {
+	NegativeWeights, NodesOutside, Degree int
+	LostDigits                            float64
+	domain                                string // "interval" or "element"
+}
+
 // checkThresholds returns a *thresholdError naming every condition that
 // holds, or nil.
-func checkThresholds(checks []failCheck, r *stability.Report) error {
+func checkThresholds(checks []failCheck, r auditFacts) error {
 	var failed []string
 	for _, c := range checks {
 		switch c.kind {
@@ -234,15 +282,15 @@ func checkThresholds(checks []failCheck, r *stability.Report) error {
 			}
 		case "outside":
 			if r.NodesOutside > 0 {
-				failed = append(failed, fmt.Sprintf("%d nodes outside the interval", r.NodesOutside))
+				failed = append(failed, fmt.Sprintf("%d nodes outside the %s", r.NodesOutside, r.domain))
 			}
 		case "degree":
 			if r.Degree < c.degree {
 				failed = append(failed, fmt.Sprintf("degree %d < %d", r.Degree, c.degree))
 			}
 		case "lost":
-			if float64(r.LostDigits) > c.lost {
-				failed = append(failed, fmt.Sprintf("lost digits %.3g > %g", float64(r.LostDigits), c.lost))
+			if r.LostDigits > c.lost {
+				failed = append(failed, fmt.Sprintf("lost digits %.3g > %g", r.LostDigits, c.lost))
 			}
 		}
 	}

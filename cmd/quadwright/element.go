@@ -17,6 +17,7 @@ type elementOptions struct {
 	shape, degree, digits, format, output string
 	product, lobatto                      bool
 	allowNegative, allowOutside           bool
+	weight, momentsFile                   string
 }
 
 func newElementCommand() *cobra.Command {
@@ -38,11 +39,35 @@ Gauss-Lobatto) or the collapsed-coordinate product of Gauss-Jacobi rules
 (triangle, tetrahedron, prism, pyramid). Every weight is positive and every
 node inside. Each printed digit is confirmed by a second computation at
 higher precision, and the printed rule is tested on every monomial against
-its exact integral over the element; the degree reported is the one verified.`,
+its exact integral over the element; the degree reported is the one verified.
+
+With --weight EXPR (a function of x, y and, on 3-D elements, z: for example
+x, the radius, on an axisymmetric triangle in the r-z plane) or --moments FILE
+the rule is for the integral of w p over the element: exact for every
+polynomial p of total degree up to --degree, with positive weights, nodes
+inside the element and at most as many points as there are such polynomials
+(degrees up to 60 on the line, 30 on 2-D and 12 on 3-D elements). Its moments
+come from product rules of increasing order, sampling the weight, until two
+orders agree. A weight that is negative or undefined somewhere on the element
+is refused; one so singular or kinked that the orders never agree is refused
+with the advice to give its moments in a file. The rule is a positive
+subsample of a product rule (Tchakaloff; nonnegative least squares), thinned
+by point elimination and polished by Gauss-Newton at extended precision, every
+printed digit confirmed at a second precision and verified against the
+weight's moments.
+
+A moment file has lines "a b [c] value": the exponents of x, y (and z) and the
+integral of x^a y^b z^c w over the reference element, a decimal or p/q; '#'
+starts a comment. Every exponent of total degree up to --degree is needed. The
+digits of decimal moments limit --digits.`,
 		Example: `  quadwright element --shape triangle --degree 5
   quadwright element --shape tetrahedron --degree 4 --digits 30 --format json
   quadwright element --shape hexahedron --degree 3 --product --lobatto --format csv
-  quadwright element --shape pyramid --degree 6 -o pyramid6.json --format json`,
+  quadwright element --shape pyramid --degree 6 -o pyramid6.json --format json
+  quadwright element --shape triangle --degree 4 --weight x --digits 20
+  quadwright element --shape quadrilateral --degree 5 --weight "exp(x)*exp(y)" --format json -o expq5.json
+  printf '0 0 1/2\n1 0 1/6\n0 1 1/6\n2 0 1/12\n1 1 1/24\n0 2 1/12\n' > tri-moments.txt
+  quadwright element --shape triangle --degree 2 --moments tri-moments.txt --digits 30`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			return runElement(cmd.Context(), o, cmd)
@@ -51,11 +76,13 @@ its exact integral over the element; the degree reported is the one verified.`,
 	f := cmd.Flags()
 	f.StringVar(&o.shape, "shape", "", "reference element: "+strings.Join(element.ShapeNames, ", ")+" (required)")
 	f.StringVar(&o.degree, "degree", "", "total polynomial degree to integrate exactly, 0 to 999 on the line, 99 on 2-D and 30 on 3-D elements (required)")
-	f.StringVar(&o.digits, "digits", "", "significant decimal digits of every coordinate and weight, all correct, 1 to 1000; default: float64 mode, the nearest double to every value")
+	f.StringVar(&o.digits, "digits", "", "significant decimal digits of every coordinate and weight, all correct, 1 to 1000 (900 with --weight or --moments); default: float64 mode, the nearest double to every value")
 	f.StringVar(&o.format, "format", "text", "output format: text, json or csv (x,y[,z],weight)")
 	f.StringVarP(&o.output, "output", "o", "", "write the rule to this file (atomically) instead of standard output")
 	f.BoolVar(&o.product, "product", false, "build the tensor or collapsed product rule even where a symmetric rule is catalogued")
 	f.BoolVar(&o.lobatto, "lobatto", false, "with --product on the line, quadrilateral or hexahedron: Gauss-Lobatto factors (nodes on the boundary included)")
+	f.StringVar(&o.weight, "weight", "", "weight function of the coordinates x, y, z (as many as the element has), for example \"x\" or \"exp(-x*y)\": the rule is for the integral of w p over the element (default: weight 1)")
+	f.StringVar(&o.momentsFile, "moments", "", "file of the weight's monomial moments, lines \"a b [c] value\" (value: the integral of x^a y^b z^c w, decimal or p/q), instead of --weight")
 	f.BoolVar(&o.allowNegative, "allow-negative", false, "accept rules with negative weights (every rule built now has positive weights)")
 	f.BoolVar(&o.allowOutside, "allow-outside", false, "accept rules with nodes outside the element (every rule built now has its nodes inside)")
 	return cmd
@@ -92,6 +119,15 @@ func runElement(ctx context.Context, o *elementOptions, cmd *cobra.Command) erro
 		return fmt.Errorf("--digits auto: give a number of digits for an element rule, for example --digits 34")
 	}
 	req.Digits = digits
+	req.Weight = strings.TrimSpace(o.weight)
+	if o.weight != "" && req.Weight == "" {
+		return fmt.Errorf("--weight %q: the expression is empty", o.weight)
+	}
+	if o.momentsFile != "" {
+		if req.Moments, err = element.ReadMomentTable(o.momentsFile, shape.Dim()); err != nil {
+			return err
+		}
+	}
 	rule, err := element.Build(ctx, req)
 	if err != nil {
 		return err
@@ -123,11 +159,18 @@ func writeElementRule(w *strings.Builder, r *element.Rule, format string) error 
 		}
 		fmt.Fprintf(w, "# quadwright %s rule on the reference %s\n", r.Kind, r.Shape)
 		fmt.Fprintf(w, "# method:   %s\n", r.Method)
+		if r.Weight != "" {
+			fmt.Fprintf(w, "# weight:   %s (the rule integrates w p over the element)\n", r.Weight)
+		}
 		fmt.Fprintf(w, "# points:   %d", r.Points())
 		if r.Published > 0 {
 			fmt.Fprintf(w, " (best published fully symmetric rule: %d)", r.Published)
 		}
-		fmt.Fprintf(w, "\n# degree:   %d (asked %d; verified on the printed values against exact monomial integrals, largest residual %.2g times the tolerance)\n", r.Degree, r.Requested, r.Exactness.WorstShare)
+		against := "exact monomial integrals"
+		if r.Weight != "" {
+			against = "the weight's monomial moments"
+		}
+		fmt.Fprintf(w, "\n# degree:   %d (asked %d; verified on the printed values against %s, largest residual %.2g times the tolerance)\n", r.Degree, r.Requested, against, r.Exactness.WorstShare)
 		fmt.Fprintf(w, "# digits:   %s\n", digits)
 		if r.WorkingPrec > 0 {
 			fmt.Fprintf(w, "# precision: %d bits, confirmed against an independent computation at %d bits\n", r.WorkingPrec, r.CheckPrec)

@@ -22,6 +22,12 @@ type Request struct {
 	// Lobatto builds the tensor product from Gauss-Lobatto rules (line,
 	// quadrilateral and hexahedron only); it implies Product.
 	Lobatto bool
+	// Weight, when not empty, is a weight expression in the element's
+	// coordinates (ParseWeight): the rule is then built for the integral
+	// of w p over the element (Weighted). Moments, when not nil, gives the
+	// weight by its monomial moments instead. At most one of the two.
+	Weight  string
+	Moments *MomentTable
 }
 
 // Rule is a verified element rule with its provenance.
@@ -50,6 +56,10 @@ type Rule struct {
 	// Factors is the number of 1-D points in each direction (product and
 	// collapsed rules).
 	Factors []int
+	// Weight is the weight expression of a weighted rule ("" for weight 1);
+	// MomentFile names the moment table it was built from, if any.
+	Weight     string
+	MomentFile string
 	// Published is the point count of the best published fully symmetric
 	// rule of this degree with positive weights and interior points (0 when
 	// unknown); set for symmetric rules.
@@ -82,6 +92,9 @@ func checkRequest(req Request) error {
 	if req.Digits < 0 || req.Digits > precision.MaxDigits {
 		return fmt.Errorf("--digits %d: the digits must be between 1 and %d", req.Digits, precision.MaxDigits)
 	}
+	if req.Weight != "" || req.Moments != nil {
+		return checkWeighted(req)
+	}
 	if req.Lobatto && req.Shape != Line && req.Shape != Quadrilateral && req.Shape != Hexahedron {
 		return fmt.Errorf("--lobatto: Gauss-Lobatto products exist for the line, quadrilateral and hexahedron, not the %s", req.Shape)
 	}
@@ -90,10 +103,14 @@ func checkRequest(req Request) error {
 
 // Build returns the rule asked: the catalogued symmetric rule of the
 // degree when there is one and neither Product nor Lobatto is set (see
-// Symmetric), else the product or collapsed rule (Product).
+// Symmetric), else the product or collapsed rule (Product); with a Weight
+// or Moments, the weighted rule (Weighted).
 func Build(ctx context.Context, req Request) (*Rule, error) {
 	if err := checkRequest(req); err != nil {
 		return nil, err
+	}
+	if req.Weight != "" || req.Moments != nil {
+		return Weighted(ctx, req)
 	}
 	if !req.Product && !req.Lobatto {
 		if r, ok, err := Symmetric(ctx, req); ok || err != nil {

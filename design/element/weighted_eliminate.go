@@ -1,0 +1,115 @@
+package element
+
+import (
+	"context"
+	"math"
+	"sort"
+)
+
+// eliminationWork bounds the floating-point work of point elimination:
+// about this many flops in all, so that the attempts allowed shrink as
+// the moment equations grow (deterministically, unlike a time limit).
+const eliminationWork = 1.2e11
+
+// eliminate removes points from the rule r (which solves the moment
+// equations to 2^tolLog2 at prec bits) one at a time while the rest can still
+// solve them with positive weights and interior nodes, after H. Xiao and
+// Z. Gimbutas, "A numerical algorithm for the construction of efficient
+// quadrature rules in two and higher dimensions", Comput. Math. Appl. 59
+// (2010): the points are tried in increasing order of significance u_i
+// |psi(x_i)|^2 (the share of the weighted basis the point carries), each
+// removal followed by damped Gauss-Newton with minimum-norm steps from the
+// remaining points, during which a point whose weight would collapse or
+// which would leave the element is dropped as well (solveDropping). A
+// rule of n points has (dim+1) n unknowns, so no removal is tried below
+// ceil(M / (dim+1)) points.
+func (ms *momentSystem) eliminate(ctx context.Context, r *wrule, prec uint, tolLog2 float64) *wrule {
+	M, dim := ms.bb.size(), ms.s.Dim()
+	minPts := (M + dim) / (dim + 1)
+	per := 24 * float64(M) * float64(M) * float64((dim+1)*len(r.x)) // one attempt, at most 12 steps of QR
+	budget := int(math.Min(float64(4*M), math.Max(8, eliminationWork/per)))
+	const triesPerRound = 8
+	// Far above the fewest points possible, the least significant points
+	// are first removed in batches (halved on failure), which saves most
+	// of the attempts; single removals finish the job.
+	batch := max(1, (len(r.x)-minPts)/4)
+	for len(r.x) > minPts && budget > 0 {
+		if ctx.Err() != nil {
+			return r
+		}
+		sig := ms.significance(r)
+		order := make([]int, len(r.x))
+		for i := range order {
+			order[i] = i
+		}
+		sort.SliceStable(order, func(a, b int) bool { return sig[order[a]] < sig[order[b]] })
+		if batch > 1 {
+			b := min(batch, len(r.x)-minPts)
+			budget--
+			if res, _, err := ms.solveDropping(ctx, r.without(order[:b]...), prec, tolLog2, 12, minPts); err == nil {
+				r = res
+			} else {
+				batch /= 2
+			}
+			continue
+		}
+		removed := false
+		for t := 0; t < triesPerRound && t < len(order) && budget > 0; t++ {
+			budget--
+			if res, _, err := ms.solveDropping(ctx, r.without(order[t]), prec, tolLog2, 12, minPts); err == nil {
+				r, removed = res, true
+				break
+			}
+		}
+		if !removed {
+			break
+		}
+	}
+	return r
+}
+
+// significance is u_i |psi(x_i)|^2 for every node, in float64.
+func (ms *momentSystem) significance(r *wrule) []float64 {
+	M := ms.bb.size()
+	val := make([]float64, M)
+	psi := make([]float64, M)
+	x := make([]float64, ms.s.Dim())
+	out := make([]float64, len(r.x))
+	for i := range r.x {
+		for k := range x {
+			x[k], _ = r.x[i][k].Float64()
+		}
+		ms.bb.eval64(x, val, nil)
+		for j := 0; j < M; j++ {
+			s := 0.0
+			for a := 0; a <= j; a++ {
+				s += val[a] * ms.C.At(a, j)
+			}
+			psi[j] = s
+		}
+		u, _ := r.u[i].Float64()
+		n := 0.0
+		for _, p := range psi {
+			n += p * p
+		}
+		out[i] = u * n
+	}
+	return out
+}
+
+// without returns r with the nodes drop left out (sharing the values of
+// the rest).
+func (r *wrule) without(drop ...int) *wrule {
+	gone := map[int]bool{}
+	for _, i := range drop {
+		gone[i] = true
+	}
+	out := &wrule{}
+	for k := range r.x {
+		if !gone[k] {
+			out.x = append(out.x, r.x[k])
+			out.u = append(out.u, r.u[k])
+		}
+	}
+	return out
+}
