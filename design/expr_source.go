@@ -15,8 +15,8 @@ import (
 //
 //   - modified moments in moments.DefaultBasis of the interval (Legendre on
 //     a finite interval, Laguerre on a half-line, Hermite on the line),
-//     integrated by part A's double-exponential quadrature, then the
-//     modified Chebyshev algorithm (ModifiedChebyshev);
+//     integrated by double-exponential quadrature (moments.Weight.Moments),
+//     then the modified Chebyshev algorithm (ModifiedChebyshev);
 //   - a discretisation of the weight (a positive discrete measure exact for
 //     polynomials of the degree needed), then the discretised Stieltjes
 //     procedure (Stieltjes, cheap and parallel), or, when that does not
@@ -73,11 +73,11 @@ func (s *ExprSource) Domain() moments.Interval { return s.W.Interval }
 // stages' agreement then shows.
 const routeSlack = 64
 
-// Recurrence returns pairs 0..n-1 at prec bits: the Lanczos route's pairs,
-// after checking that the modified-moment route agrees with them to
-// prec - routeSlack bits on every pair (relative to the pair's scale,
-// |alpha_k| + sqrt(beta_k) for alpha_k). A disagreement is an error, never
-// a result. On an interval symmetric about 0, when both routes put every
+// Recurrence returns pairs 0..n-1 at prec bits: the discretisation's pairs
+// (Stieltjes, or Lanczos), after checking that the modified-moment route
+// agrees with them to prec - routeSlack bits on every pair (relative to the
+// pair's scale, |alpha_k| + sqrt(beta_k) for alpha_k). A disagreement is an
+// error, never a result. On an interval symmetric about 0, when both routes put every
 // alpha_k below 2^-(prec-routeSlack) sqrt(beta_k), the weight is even as
 // far as the computation can tell and the alphas are returned as exact
 // zeros, so that the Gauss engine treats the rule as symmetric (its middle
@@ -190,7 +190,7 @@ type conditioningError struct{ err error }
 func (e *conditioningError) Error() string { return e.err.Error() }
 func (e *conditioningError) Unwrap() error { return e.err }
 
-// digitsFor is the decimal accuracy asked of part A's integrators for pairs
+// digitsFor is the decimal accuracy asked of the integrator for pairs
 // confirmed to prec - routeSlack bits: those bits in digits, plus ten.
 func digitsFor(prec uint) int {
 	return int(float64(prec-min(prec, routeSlack))/3.321928094887362) + 10

@@ -4,7 +4,6 @@ import (
 	"context"
 	"fmt"
 	"io"
-	"math"
 	"math/big"
 	"strings"
 
@@ -132,15 +131,7 @@ func AuditElement(ctx context.Context, s element.Shape, nodes [][]string, weight
 			rep.NodesOnBoundary++
 		}
 	}
-	switch {
-	case rep.NegativeWeights == 0:
-		rep.StabilityFactor, rep.LostDigits = 1, 0
-	case sum.Sign() == 0:
-		rep.StabilityFactor, rep.LostDigits = Float(math.Inf(1)), Float(math.Inf(1))
-	default:
-		f := new(big.Rat).Quo(absSum, new(big.Rat).Abs(sum))
-		rep.StabilityFactor, rep.LostDigits = ratFloat(f), Float(log10Rat(f))
-	}
+	rep.StabilityFactor, rep.LostDigits = stabilityFactor(rep.NegativeWeights, sum, absSum)
 	rep.Mass = ratFloat(sum)
 
 	weighted := strings.TrimSpace(opt.Weight) != "" && strings.TrimSpace(opt.Weight) != "1"

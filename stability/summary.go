@@ -128,16 +128,7 @@ func (p *parsedRule) summarize(dom moments.Interval) Summary {
 	}
 	abs.Add(sum, neg)
 	abs.Add(abs, neg)
-	switch {
-	case s.NegativeWeights == 0:
-		s.StabilityFactor, s.LostDigits = 1, 0
-	case sum.Sign() == 0:
-		s.StabilityFactor, s.LostDigits = Float(math.Inf(1)), Float(math.Inf(1))
-	default:
-		f := new(big.Rat).Quo(abs, new(big.Rat).Abs(sum))
-		s.StabilityFactor = ratFloat(f)
-		s.LostDigits = Float(log10Rat(f))
-	}
+	s.StabilityFactor, s.LostDigits = stabilityFactor(s.NegativeWeights, sum, abs)
 	for _, x := range p.x {
 		switch {
 		case dom.Lo.Finite() && x.Cmp(dom.Lo.Value) < 0, dom.Hi.Finite() && x.Cmp(dom.Hi.Value) > 0:
@@ -193,4 +184,18 @@ func Summarize(r *design.Rule) (Summary, error) {
 	s := p.summarize(r.Domain)
 	s.Degree = r.Degree
 	return s, nil
+}
+
+// stabilityFactor returns sum |w| / |sum w| (abs and sum) and its log10,
+// the digits the weighted sum can lose: 1 and 0 when no weight is negative,
+// +Inf when the weights sum to zero.
+func stabilityFactor(negatives int, sum, abs *big.Rat) (factor, lost Float) {
+	switch {
+	case negatives == 0:
+		return 1, 0
+	case sum.Sign() == 0:
+		return Float(math.Inf(1)), Float(math.Inf(1))
+	}
+	f := new(big.Rat).Quo(abs, new(big.Rat).Abs(sum))
+	return ratFloat(f), Float(log10Rat(f))
 }
