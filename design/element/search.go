@@ -200,30 +200,36 @@ func start(sy *Symmetry, st Structure, rng *rand.Rand) []float64 {
 	vol, _ := sy.Shape.Measure().Float64()
 	w := vol / float64(st.Points(sy))
 	var v []float64
-	for _, o := range st.orbitList(sy) {
-		v = append(v, w)
-		t := make([]float64, o.Params)
-		one := Structure(make([]int, len(sy.Types)))
-		for i := range sy.Types {
-			if &sy.Types[i] == o {
-				one[i] = 1
-			}
+	for i, c := range st {
+		for k := 0; k < c; k++ {
+			t, _ := randomOrbit(sy, i, rng)
+			v = append(append(v, w), t...)
 		}
-		for try := 0; try < 10000; try++ {
-			for q := range t {
-				c := 0
-				for c < len(o.A64[0]) && o.A64[0][c][q] == 0 {
-					c++
-				}
-				t[q] = sy.lo[c] + (sy.hi[c]-sy.lo[c])*rng.Float64()
-			}
-			if roughlyInside(sy, one, append([]float64{w}, t...), 0.01) && acceptable(sy, one, append([]float64{w}, t...)) {
-				break
-			}
-		}
-		v = append(v, t...)
 	}
 	return v
+}
+
+// randomOrbit draws the parameters of an orbit of type i uniformly in the
+// element's bounding box until the orbit lies inside with a margin of 1%
+// and its points are distinct (ok), at most 10000 times.
+func randomOrbit(sy *Symmetry, i int, rng *rand.Rand) (t []float64, ok bool) {
+	o := &sy.Types[i]
+	t = make([]float64, o.Params)
+	one := single(sy, i)
+	for try := 0; try < 10000; try++ {
+		for q := range t {
+			c := 0
+			for c < len(o.A64[0]) && o.A64[0][c][q] == 0 {
+				c++
+			}
+			t[q] = sy.lo[c] + (sy.hi[c]-sy.lo[c])*rng.Float64()
+		}
+		v := append([]float64{1}, t...)
+		if roughlyInside(sy, one, v, 0.01) && acceptable(sy, one, v) {
+			return t, true
+		}
+	}
+	return t, false
 }
 
 // Structures lists the orbit structures of sy with exactly p points and at
@@ -271,17 +277,20 @@ type SearchResult struct {
 
 // Search looks for a fully symmetric rule of degree d with p points,
 // positive weights and interior points on the element s, on the moment
-// equations in the orthonormal basis. The structures of p points
-// (Structures) are visited in rounds; a structure with e more unknowns
-// than the fewest any of them has is visited in every (1+e^2)-th round
-// only, since the rules of fewest points almost always have the fewest
-// unknowns. Each visit makes two starts: one by orbit elimination from a
-// rule with two more orbits of the most general type (eliminateTo, after
-// Xiao and Gimbutas 2010) and one by Levenberg-Marquardt directly on the
-// structure, each from a random start; at most maxStarts starts in all.
-// The starts are drawn from a PCG stream seeded by seed, d and p, so the
-// result is the same for the same arguments. ok is false when no start
-// succeeded.
+// equations in the orthonormal basis. It works in rounds. Each round
+// opens with a descent (descend.go): an NNLS rule over random candidate
+// orbits made smaller by orbit elimination and demotion until it has p
+// points. The structures of p points (Structures) are then visited; a
+// structure with e more unknowns than the fewest any of them has is
+// visited in every (1+e^2)-th round only, since the rules of fewest points
+// almost always have the fewest unknowns. Each visit makes two starts: one
+// by orbit elimination from a rule with two more orbits of the most
+// general type (eliminateTo, after Xiao and Gimbutas 2010) and one by
+// Levenberg-Marquardt directly on the structure, each from a random
+// start. A descent and each start count as one of at most maxStarts
+// starts. The random numbers come from a PCG stream seeded by seed, d and
+// p, so the result is the same for the same arguments. ok is false when
+// no start succeeded.
 func Search(ctx context.Context, s Shape, d, p int, seed uint64, maxStarts int) (SearchResult, bool, error) {
 	return SearchWith(ctx, s, d, p, SearchOptions{Seed: seed, MaxStarts: maxStarts})
 }
@@ -299,6 +308,10 @@ type SearchOptions struct {
 	// unknowns (easy to solve, hard to keep positive and inside) as often,
 	// which is what finds a rule above the published count.
 	Uniform bool
+	// RandomOnly leaves out the descent (descend.go) that opens every
+	// round, for the random starts alone (the search of catalogue entries
+	// made before the descent, with their seeds).
+	RandomOnly bool
 }
 
 // SearchWith is Search with options.
@@ -315,7 +328,22 @@ func SearchWith(ctx context.Context, s Shape, d, p int, opt SearchOptions) (Sear
 	least := sts[0].Unknowns(sy)
 	rng := rand.New(rand.NewPCG(seed, uint64(d)<<32|uint64(p)))
 	tries := 0
+	dsys := newProjectedSystem(sy, sts[0], d)
 	for round := 0; tries < maxStarts; round++ {
+		if !opt.RandomOnly {
+			if err := ctx.Err(); err != nil {
+				return SearchResult{}, false, err
+			}
+			tries++
+			if os, ok := descend(dsys, tchakaloffStart(dsys, rng), sts); ok {
+				st, v := flatten(sy, os)
+				sys := newSystem(sy, st, d)
+				if opt.Projected {
+					sys = newProjectedSystem(sy, st, d)
+				}
+				return result(sys, v, tries), true, nil
+			}
+		}
 		for _, st := range sts {
 			e := st.Unknowns(sy) - least
 			if opt.Uniform {
