@@ -1,6 +1,8 @@
 package element
 
 import (
+	"context"
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"sort"
@@ -317,4 +319,42 @@ func reachable(sy *Symmetry, st, target Structure) bool {
 		carry += surplus - deficit
 	}
 	return true
+}
+
+// Smallest runs n descents aimed at p points on s at degree d and returns
+// the rule of fewest points any of them reached (every rule on a descent's
+// way solves the moment equations with positive weights and interior
+// points, so a descent that stops short still yields one). reached
+// reports whether one reached p points or fewer; ok is false when no
+// descent produced a rule. The descents draw from a PCG stream seeded by
+// seed, d and p.
+func Smallest(ctx context.Context, s Shape, d, p int, seed uint64, n int) (res SearchResult, reached, ok bool, err error) {
+	sy := SymmetryOf(s)
+	if sy == nil {
+		return SearchResult{}, false, false, fmt.Errorf("the %s has no symmetric rules to search", s)
+	}
+	sts := sy.Structures(d, p)
+	if len(sts) == 0 {
+		return SearchResult{Shape: s}, false, false, nil
+	}
+	rng := rand.New(rand.NewPCG(seed, uint64(d)<<32|uint64(p)|1<<63))
+	sys := newProjectedSystem(sy, sts[0], d)
+	best := -1
+	for k := 0; k < n; k++ {
+		if err := ctx.Err(); err != nil {
+			return SearchResult{}, false, false, err
+		}
+		os, done := descend(sys, tchakaloffStart(sys, rng), sts)
+		if os == nil {
+			continue
+		}
+		st, v := flatten(sy, os)
+		if best < 0 || st.Points(sy) < best {
+			best, res, ok = st.Points(sy), result(newSystem(sy, st, d), v, k+1), true
+		}
+		if done {
+			return res, true, true, nil
+		}
+	}
+	return res, false, ok, nil
 }

@@ -232,9 +232,10 @@ func randomOrbit(sy *Symmetry, i int, rng *rand.Rand) (t []float64, ok bool) {
 	return t, false
 }
 
-// Structures lists the orbit structures of sy with exactly p points and at
-// least as many unknowns as Equations(d), those with fewest unknowns
-// first (then those with fewer orbits of the first types).
+// Structures lists the orbit structures of sy with exactly p points, at
+// least as many unknowns as Equations(d) and enough unknowns off every
+// stratum (admissible), those with fewest unknowns first (then those with
+// fewer orbits of the first types).
 func (sy *Symmetry) Structures(d, p int) []Structure {
 	need := sy.Equations(d)
 	var out []Structure
@@ -244,7 +245,7 @@ func (sy *Symmetry) Structures(d, p int) []Structure {
 		if i == len(sy.Types) {
 			if left == 0 {
 				st := Structure(append([]int(nil), cur...))
-				if st.Unknowns(sy) >= need {
+				if st.Unknowns(sy) >= need && sy.admissible(st, d) {
 					out = append(out, st)
 				}
 			}

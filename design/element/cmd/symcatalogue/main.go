@@ -13,6 +13,11 @@
 // again from their parameters, which refreshes the nodes and weights; with
 // -redo the kept degrees in range are searched again, and a rule found
 // replaces the kept one).
+// With -descents N each degree is instead given N descents aimed at the
+// published count (element.Smallest), and the smallest rule any of them
+// reaches replaces a kept one with more points.
+// With -random-only the search leaves out the descents that open its
+// rounds and makes random starts alone.
 // With -projected the search solves only the invariant equations, each
 // orbit evaluated at one point (much faster on the 3-D shapes). With
 // -uniform every orbit structure is tried equally often, which finds
@@ -47,6 +52,8 @@ func main() {
 	projected := flag.Bool("projected", false, "solve the invariant equations only (see element.SearchOptions)")
 	redo := flag.Bool("redo", false, "search the kept degrees in range again, replacing a kept rule only by one found")
 	rebuild := flag.Bool("rebuild", false, "polish the kept degrees again from their parameters")
+	randomOnly := flag.Bool("random-only", false, "leave out the descent that opens each round of the search, for random starts alone (see element.SearchOptions)")
+	descents := flag.Int("descents", 0, "instead of the search count by count, run this many descents aimed at the published count and keep the smallest rule any reaches (see element.Smallest), where it has fewer points than a kept one")
 	flag.Parse()
 	s, err := element.ParseShape(*shapeName)
 	if err != nil || element.SymmetryOf(s) == nil {
@@ -87,15 +94,39 @@ func main() {
 		if p == 0 {
 			p = 1
 		}
+		t0 := time.Now()
+		if *descents > 0 {
+			res, _, ok, err := element.Smallest(ctx, s, d, p, *seed, *descents)
+			if err != nil {
+				fail(err)
+			}
+			if !ok {
+				fmt.Fprintf(os.Stderr, "%s degree %d: no descent produced a rule (%.1fs)\n", s, d, time.Since(t0).Seconds())
+				continue
+			}
+			e, err := element.NewCatalogueEntry(ctx, d, res, *seed)
+			if err != nil {
+				fail(fmt.Errorf("degree %d: %v", d, err))
+			}
+			if k, had := old[d]; had && k.Points <= e.Points {
+				fmt.Fprintf(os.Stderr, "%s degree %d: %d points (kept %d), %.1fs\n", s, d, e.Points, k.Points, time.Since(t0).Seconds())
+				continue
+			}
+			fmt.Fprintf(os.Stderr, "%s degree %d: %d points (published %d), %s, descent %d, %.1fs\n", s, d, e.Points, e.Published, e.Orbits, e.Starts, time.Since(t0).Seconds())
+			old[d] = e
+			if *out != "" {
+				write(ctx, cat, old, *out, s, false)
+			}
+			continue
+		}
 		limit := min(element.ProductPoints(s, d), p+*maxExtra)
 		p += *fromExtra
-		t0 := time.Now()
 		found := false
 		for ; p <= limit && !found; p++ {
 			if len(element.SymmetryOf(s).Structures(d, p)) == 0 {
 				continue
 			}
-			res, ok, err := element.SearchWith(ctx, s, d, p, element.SearchOptions{Seed: *seed, MaxStarts: *starts, Uniform: *uniform, Projected: *projected})
+			res, ok, err := element.SearchWith(ctx, s, d, p, element.SearchOptions{Seed: *seed, MaxStarts: *starts, Uniform: *uniform, Projected: *projected, RandomOnly: *randomOnly})
 			if err != nil {
 				fail(err)
 			}
