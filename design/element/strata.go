@@ -23,6 +23,10 @@ import (
 type stratum struct {
 	on   []bool
 	need int
+	// sub holds those polynomials as orthonormal invariant equations
+	// (combinations of the invariant basis): the equations the orbits
+	// off the stratum solve alone.
+	sub *invariantBasis
 }
 
 type strataKey struct {
@@ -81,7 +85,7 @@ func (sy *Symmetry) strataOf(d int) []stratum {
 			E.SetCol(j, c)
 		}
 		var svd mat.SVD
-		if !svd.Factorize(E, mat.SVDNone) {
+		if !svd.Factorize(E, mat.SVDFullU) {
 			continue // no bound from this set
 		}
 		sv := svd.Values(nil)
@@ -92,7 +96,19 @@ func (sy *Symmetry) strataOf(d int) []stratum {
 			}
 		}
 		if need := r - rank; need > 0 {
-			out = append(out, stratum{on, need})
+			var U mat.Dense
+			svd.UTo(&U)
+			q := sys.proj
+			sub := &invariantBasis{r: need, m: q.m, qt: make([]float64, need*q.m)}
+			for i := 0; i < need; i++ {
+				for k := 0; k < r; k++ {
+					c := U.At(k, rank+i)
+					for j := 0; j < q.m; j++ {
+						sub.qt[i*q.m+j] += c * q.qt[k*q.m+j]
+					}
+				}
+			}
+			out = append(out, stratum{on, need, sub})
 		}
 	}
 	v, _ := strataCache.LoadOrStore(strataKey{sy.Shape, d}, out)
@@ -115,4 +131,13 @@ func (sy *Symmetry) admissible(st Structure, d int) bool {
 		}
 	}
 	return true
+}
+
+// subSystem is the system of the orbits st (off the stratum z) on z's
+// equations alone.
+func subSystem(sy *Symmetry, st Structure, d int, z stratum) *system {
+	s := newSystem(sy, st, d)
+	s.proj = z.sub
+	s.m = z.sub.r
+	return s
 }
