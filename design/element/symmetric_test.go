@@ -110,7 +110,6 @@ func TestSearchUniform(t *testing.T) {
 var shortOfPublished = map[Shape]map[int]bool{
 	Hexahedron: {2: true, 3: true},
 	Prism:      {9: true, 10: true},
-	Pyramid:    {10: true},
 }
 
 // A symmetric 6-point rule of degree 2 on the cube has its points on the
