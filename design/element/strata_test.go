@@ -96,12 +96,20 @@ func TestStrataSubEquations(t *testing.T) {
 
 // The one admissible prism structure of 71 points at degree 10 (the
 // published count, from memory) has one (a,b,0) and one (a,b,c) orbit:
-// 7 unknowns for the 7 invariant polynomials vanishing on the medians.
-// That square system had no solution at all, positive or not, in 2000
-// random Levenberg-Marquardt starts, while two (a,b,0) orbits and one
-// (a,b,c) (10 unknowns) solve it from most starts: evidence, not proof,
-// that no fully symmetric 71-point rule of degree 10 exists with these
-// orbits, which the catalogue's note records. Here 300 starts of each.
+// 7 unknowns for the 7 invariant polynomials vanishing on the medians,
+// D^2 q with D the product of the three median planes (degree 3) and q in
+// 1, u2, u3, u2^2, z^2, z^2 u2, z^4 (u2, u3 the triangle's invariants).
+// That system has no real solution (hand derivation): the prism's
+// integrals factor into the triangle's (T) and [-1,1]'s, so the z^2 and
+// z^4 equations give c^2 = 3/5 and the (a,b,c) orbit 10/9 of T(D^2); the
+// constant one leaves 8/9 to the (a,b,0) orbit; the u2 and z^2 u2
+// equations put both orbits at u2 = T(D^2 u2)/T(D^2); the u2^2 equation
+// then asks the D^2-weighted variance of u2 over the triangle to vanish,
+// and it is positive. So no 71-point structure that passes the counts
+// (Structures) holds a rule: a 71-point rule would need fewer unknowns
+// than equations on some stratum. Here the Levenberg-Marquardt solve
+// agrees: none of 300 starts solves that system, while two (a,b,0)
+// orbits and one (a,b,c) (10 unknowns) solve it from many.
 func TestPrismMedianSubsystem(t *testing.T) {
 	sy := SymmetryOf(Prism)
 	var med stratum

@@ -22,7 +22,10 @@
 // orbit evaluated at one point (much faster on the 3-D shapes). With
 // -uniform every orbit structure is tried equally often, which finds
 // rules above the published count sooner. Each file's "regenerate" field
-// records the commands that made it.
+// records the commands that made it, in order: a record, since each ran
+// with the search of its day (the descents and the strata bound came
+// later), and run again today a command may find another rule; the stored
+// rules are what TestCatalogue verifies.
 package main
 
 import (
