@@ -96,10 +96,8 @@ func tchakaloffStart(sys *system, rng *rand.Rand) []orb {
 		b[i] = sys.mass * sys.proj.qt[i*sys.proj.m] // the invariant moments
 	}
 	for k, c := range cand {
-		sys.like(single(sy, c.typ)).eval(append([]float64{1}, c.t...), col, nil)
-		for i := range col {
-			A.Set(i, k, col[i]+b[i])
-		}
+		orbitSums(sys, c.typ, c.t, col)
+		A.SetCol(k, col)
 	}
 	x, _ := nnls(A, b, 1e-15, 10*m)
 	var out []orb
@@ -120,16 +118,24 @@ func significance(sys *system, os []orb) []float64 {
 	sig := make([]float64, len(os))
 	r := make([]float64, sys.m)
 	for k, o := range os {
-		s1 := sys.like(single(sys.sy, o.typ))
-		s1.eval(append([]float64{1}, o.t...), r, nil)
+		orbitSums(sys, o.typ, o.t, r)
 		q := 0.0
-		for i := range r {
-			e := r[i] + s1.mass*s1.proj.qt[i*s1.proj.m]
+		for _, e := range r {
 			q += e * e
 		}
 		sig[k] = o.w * q
 	}
 	return sig
+}
+
+// orbitSums sets out to the invariant basis of the projected system sys
+// summed over the points of the orbit of type typ with parameters t.
+func orbitSums(sys *system, typ int, t []float64, out []float64) {
+	s1 := sys.like(single(sys.sy, typ))
+	s1.eval(append([]float64{1}, t...), out, nil)
+	for i := range out {
+		out[i] += s1.mass * s1.proj.qt[i*s1.proj.m] // eval subtracted the moments
+	}
 }
 
 // descentMoves is the number of moves of each kind tried before a descent

@@ -25,7 +25,8 @@ type stratum struct {
 	need int
 	// sub holds those polynomials as orthonormal invariant equations
 	// (combinations of the invariant basis): the equations the orbits
-	// off the stratum solve alone.
+	// off the stratum solve alone (TestStrataSubEquations checks the
+	// catalogue against them).
 	sub *invariantBasis
 }
 
@@ -51,7 +52,6 @@ func (sy *Symmetry) strataOf(d int) []stratum {
 	rng := rand.New(rand.NewPCG(11, uint64(d)))
 	// Values of the invariant basis at random orbits of each type.
 	vals := make([][][]float64, n)
-	col := make([]float64, r)
 	for i, o := range sy.Types {
 		k := r + 8
 		if o.Params == 0 {
@@ -62,11 +62,8 @@ func (sy *Symmetry) strataOf(d int) []stratum {
 			if !ok {
 				continue
 			}
-			sys.like(single(sy, i)).eval(append([]float64{1}, t...), col, nil)
 			v := make([]float64, r)
-			for q := range v {
-				v[q] = (col[q] + sys.mass*sys.proj.qt[q*sys.proj.m]) / float64(o.Points())
-			}
+			orbitSums(sys, i, t, v)
 			vals[i] = append(vals[i], v)
 		}
 	}
@@ -131,13 +128,4 @@ func (sy *Symmetry) admissible(st Structure, d int) bool {
 		}
 	}
 	return true
-}
-
-// subSystem is the system of the orbits st (off the stratum z) on z's
-// equations alone.
-func subSystem(sy *Symmetry, st Structure, d int, z stratum) *system {
-	s := newSystem(sy, st, d)
-	s.proj = z.sub
-	s.m = z.sub.r
-	return s
 }
