@@ -19,6 +19,10 @@ import (
 // through the 2N-1 pairs the standard test uses).
 type DiscreteSource struct {
 	Data *moments.DiscreteMeasure
+	// Support, when not nil, is the interval stated with the data (every
+	// point lies in it; see moments.DiscreteMeasure.CheckSupport) and is
+	// the rule's Domain.
+	Support *moments.Interval
 
 	cache recurrenceCache
 	loss  digitsNote
@@ -40,8 +44,14 @@ func (s *DiscreteSource) Label() string {
 // Weight names the file: a discrete measure has no weight function.
 func (s *DiscreteSource) Weight() string { return "measure(" + s.Data.Name + ")" }
 
-// Domain is [smallest point, largest point].
+// ExactlyKnown reports that every point and mass was written exactly.
+func (s *DiscreteSource) ExactlyKnown() bool { return s.Data.Exact }
+
+// Domain is the stated Support, else [smallest point, largest point].
 func (s *DiscreteSource) Domain() moments.Interval {
+	if s.Support != nil {
+		return *s.Support
+	}
 	x := s.Data.X
 	lo, hi := x[0], x[len(x)-1]
 	if lo.Cmp(hi) == 0 {

@@ -21,7 +21,8 @@ type Request struct {
 }
 
 // AutoDigits is what Request.Auto gives for a measure known exactly (a
-// family with exact parameters): quadruple precision's 34 digits.
+// family with exact parameters, or an ExactInput whose values are all
+// exact): quadruple precision's 34 digits.
 const AutoDigits = 34
 
 // DigitLimiter is implemented by sources whose input carries finitely many
@@ -37,7 +38,7 @@ type DigitLimiter interface {
 // digits to print (0: float64 mode), or an error that gives both numbers.
 func resolveDigits(ctx context.Context, src RecurrenceSource, req Request) (int, error) {
 	lim, ok := src.(DigitLimiter)
-	if !ok {
+	if !ok || (req.Auto && exactlyKnown(src)) {
 		if req.Auto {
 			return AutoDigits, nil
 		}
@@ -53,6 +54,8 @@ func resolveDigits(ctx context.Context, src RecurrenceSource, req Request) (int,
 		return 0, fmt.Errorf("the input supports no correct digit of a %d-point rule", req.Points)
 	case req.Auto:
 		return sup, nil
+	case req.Digits == 0 && sup < 1:
+		return 0, fmt.Errorf("float64 mode needs 17 correct digits to fix the nearest double, but the input supports none for a %d-point rule", req.Points)
 	case req.Digits == 0 && sup < 17:
 		return 0, fmt.Errorf("float64 mode needs 17 correct digits to fix the nearest double, but the input supports only %d for a %d-point rule; ask for --digits %d or fewer", sup, req.Points, max(sup, 1))
 	case req.Digits > sup:

@@ -34,6 +34,13 @@ type Rule struct {
 	Measure string           // Measure.Label()
 	Weight  string           // Measure.Weight()
 	Domain  moments.Interval // Measure.Domain()
+	// SupportUnknown says the measure came without a stated support (a
+	// raw moment list without --interval): Domain is the whole line, for
+	// computation only, and reports say "support not given".
+	SupportUnknown bool
+	// Input is how many digits of the rule the measure's input carries and
+	// vouches for; nil for an exactly known measure or before it is set.
+	Input *InputDigits
 
 	// Nodes and Weights are the printed values, nodes ascending: Digits
 	// significant digits each, every one with an error below one unit in

@@ -22,6 +22,10 @@ type MomentSource struct {
 	List    *moments.MomentList
 	Basis   moments.Basis
 	Support moments.Interval // where the rule is said to live
+	// NoSupport says the list came without a support (raw moments, no
+	// --interval): Support is then the whole line, for computation only,
+	// and nothing is tested against it.
+	NoSupport bool
 
 	cache recurrenceCache
 	loss  digitsNote
@@ -39,6 +43,13 @@ func (d *digitsNote) record(given, kept, n int) {
 	d.mu.Lock()
 	defer d.mu.Unlock()
 	d.given, d.kept, d.n, d.set = given, kept, n, true
+}
+
+// get returns what record last stored; set is false before any record.
+func (d *digitsNote) get() (given, kept, n int, set bool) {
+	d.mu.Lock()
+	defer d.mu.Unlock()
+	return d.given, d.kept, d.n, d.set
 }
 
 // String is "" before any estimate, else e.g. " (the input carries 25
@@ -76,6 +87,20 @@ func (s *MomentSource) Weight() string { return "moments(" + s.List.Name + ")" }
 // Domain is the interval given with the moments.
 func (s *MomentSource) Domain() moments.Interval { return s.Support }
 
+// SupportGiven is false when the list came without a support.
+func (s *MomentSource) SupportGiven() bool { return !s.NoSupport }
+
+// ExactlyKnown reports that every moment was written exactly (integers,
+// p/q, or decimals declared exact).
+func (s *MomentSource) ExactlyKnown() bool {
+	for _, v := range s.List.Values {
+		if !v.Exact {
+			return false
+		}
+	}
+	return true
+}
+
 // Recurrence returns pairs 0..n-1 within a few ulp at prec bits of the
 // pairs that the moments, read as exact, determine: the Chebyshev algorithm
 // is rerun at doubled precisions until two runs agree (chebyshevConverged).
@@ -87,6 +112,9 @@ func (s *MomentSource) Recurrence(n int, prec uint) (*Recurrence, error) {
 	}
 	return s.cache.get(n, prec, func(n int, prec uint) (*Recurrence, error) {
 		rec, err := s.pairs(n, prec, nil)
+		if err == nil && !s.NoSupport {
+			err = CheckSupport(rec, s.Support)
+		}
 		if err != nil {
 			return nil, fmt.Errorf("--moments %s: %w", s.List.Name, err)
 		}
@@ -215,16 +243,27 @@ func signPatterns(m int) [][]int {
 // all computed at prec bits, and returns floor(-log10(r)) - 1, r the largest
 // relative change of any node or weight, at most cap and at least 0.
 func perturbedDigits(ctx context.Context, base *Recurrence, trials []*Recurrence, n int, prec uint, cap int) (int, error) {
-	s0, err := gaussStage(ctx, base.Prefix(n), n, prec, nil)
-	if err != nil {
+	worst, ok, err := worstChange(ctx, base, trials, n, prec)
+	if err != nil || !ok {
 		return 0, err
 	}
-	worst := new(big.Float).SetPrec(64)
+	return max(0, min(digitsOfChange(worst)-1, cap)), nil
+}
+
+// worstChange returns the largest relative change of a node or weight
+// between the n-point rule of base and those of trials, all at prec bits;
+// ok is false when the rule of a trial could not be computed.
+func worstChange(ctx context.Context, base *Recurrence, trials []*Recurrence, n int, prec uint) (worst *big.Float, ok bool, err error) {
+	s0, err := gaussStage(ctx, base.Prefix(n), n, prec, nil)
+	if err != nil {
+		return nil, false, err
+	}
+	worst = new(big.Float).SetPrec(64)
 	d := new(big.Float).SetPrec(prec)
 	for _, tr := range trials {
 		s1, err := gaussStage(ctx, tr.Prefix(n), n, prec, s0.nodes)
 		if err != nil {
-			return 0, nil
+			return nil, false, nil
 		}
 		for _, pair := range [2][2][]*big.Float{{s0.nodes, s1.nodes}, {s0.weights, s1.weights}} {
 			for i := range pair[0] {
@@ -239,14 +278,19 @@ func perturbedDigits(ctx context.Context, base *Recurrence, trials []*Recurrence
 			}
 		}
 	}
-	if worst.Sign() == 0 {
-		return cap, nil
+	return worst, true, nil
+}
+
+// digitsOfChange is floor(-log10(r)) for a relative change r > 0, and a
+// large number (1 << 20) for r = 0.
+func digitsOfChange(r *big.Float) int {
+	if r.Sign() == 0 {
+		return 1 << 20
 	}
 	mant := new(big.Float)
-	e := worst.MantExp(mant)
+	e := r.MantExp(mant)
 	mf, _ := mant.Float64()
-	digits := int(math.Floor(-(math.Log10(mf) + float64(e)*math.Log10(2)))) - 1
-	return max(0, min(digits, cap)), nil
+	return int(math.Floor(-(math.Log10(mf) + float64(e)*math.Log10(2))))
 }
 
 // knownTo is the uncertainty of the decimal v written with last place ulp,

@@ -81,7 +81,7 @@ func confirmStages(points, digits int, compute stageFunc) (s1, s2 *stage, texts 
 // are set by verifyRule.
 func newRule(kind string, m Measure, s1, s2 *stage, texts [2][]string, digits int, method string) *Rule {
 	return &Rule{
-		Kind: kind, Measure: m.Label(), Weight: m.Weight(), Domain: m.Domain(),
+		Kind: kind, Measure: m.Label(), Weight: m.Weight(), Domain: m.Domain(), SupportUnknown: !supportGiven(m),
 		Nodes: texts[0], Weights: texts[1], NodeValues: s2.nodes, WeightValues: s2.weights,
 		Digits: digits, WorkingPrec: s2.prec, CheckPrec: s1.prec,
 		Method: method, Fallback: s1.fallback || s2.fallback,

@@ -123,6 +123,9 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 		return o.runFastBuild(ctx, *fam, kind, n, format, cmd.OutOrStdout())
 	}
 	rule, err := o.makeRule(ctx, m, req)
+	if err == nil {
+		err = design.DescribeInput(ctx, m, rule)
+	}
 	done()
 	if err != nil {
 		return err

@@ -19,6 +19,9 @@ type measureFlags struct {
 	family, alpha, beta, interval string
 	weight, breaks                string
 	momentsFile, basis, measure   string
+	// exactDecimals declares the decimals of a --moments or --measure
+	// file exact as written.
+	exactDecimals bool
 }
 
 // addMeasureFlags registers the measure flags on cmd (build, audit,
@@ -33,7 +36,8 @@ func addMeasureFlags(cmd *cobra.Command, mf *measureFlags) {
 	f.StringVar(&mf.breaks, "breaks", "", "interior points X,Y,.. where the weight is not smooth (with --weight; optional)")
 	f.StringVar(&mf.momentsFile, "moments", "", "file of moments, one decimal or p/q per line, k = 0, 1, ... ('#' starts a comment; raw unless --basis); 2N moments are needed for N points")
 	f.StringVar(&mf.basis, "basis", "", basisHelp)
-	f.StringVar(&mf.measure, "measure", "", "file of a discrete measure, one \"x mass\" pair per line; N at most the number of distinct points")
+	f.StringVar(&mf.measure, "measure", "", "file of a discrete measure, one \"x mass\" pair per line; N at most the number of distinct points (with --interval, every point must lie in it)")
+	f.BoolVar(&mf.exactDecimals, exactDecimalsFlag, false, "read the decimals of a --moments or --measure file as exact values (0.1 is 1/10), not as known to their written digits: no digit limit, and --digits auto gives 34")
 }
 
 const basisHelp = "basis of the --moments file: monomial (raw moments, default), legendre or chebyshev (need a finite --interval), laguerre ([A,inf), default [0,inf)), hermite ((-inf,inf))"
@@ -76,6 +80,9 @@ func (mf measureFlags) resolve(ctx context.Context) (design.Measure, *moments.Fa
 	if mf.breaks != "" && given[0] != "--weight" {
 		return nil, nil, fmt.Errorf("--breaks: only used with --weight")
 	}
+	if mf.exactDecimals && given[0] != "--moments" && given[0] != "--measure" {
+		return nil, nil, fmt.Errorf("--%s: only used with --moments or --measure", exactDecimalsFlag)
+	}
 	if mf.basis != "" && given[0] != "--moments" {
 		return nil, nil, fmt.Errorf("--basis %s: only used with --moments", mf.basis)
 	}
@@ -95,20 +102,26 @@ func (mf measureFlags) resolve(ctx context.Context) (design.Measure, *moments.Fa
 		if err != nil {
 			return nil, nil, err
 		}
-		ml, err := moments.ReadMomentFile(mf.momentsFile)
+		ml, err := mf.readMoments()
 		if err != nil {
 			return nil, nil, err
 		}
-		return design.NewMomentSource(ml, basis, dom), nil, nil
+		src := design.NewMomentSource(ml, basis, dom)
+		src.NoSupport = iv == nil && basis.Name == "monomial"
+		return src, nil, nil
 	case "--measure":
-		if iv != nil {
-			return nil, nil, fmt.Errorf("--interval: not used with --measure (the support is the points given)")
-		}
-		dm, err := moments.ReadMeasureFile(mf.measure)
+		dm, err := mf.readMeasure()
 		if err != nil {
 			return nil, nil, err
 		}
-		return design.NewDiscreteSource(dm), nil, nil
+		src := design.NewDiscreteSource(dm)
+		if iv != nil {
+			if err := dm.CheckSupport(*iv); err != nil {
+				return nil, nil, err
+			}
+			src.Support = iv
+		}
+		return src, nil, nil
 	}
 	fam, err := mf.familyOf(iv)
 	if err != nil {

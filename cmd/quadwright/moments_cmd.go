@@ -78,7 +78,7 @@ func runMoments(ctx context.Context, o *momentsOptions, cmd *cobra.Command) erro
 	var lines []momentLine
 	switch {
 	case o.mf.momentsFile != "":
-		ml, err := moments.ReadMomentFile(o.mf.momentsFile)
+		ml, err := o.mf.readMoments()
 		if err != nil {
 			return err
 		}
@@ -88,7 +88,7 @@ func runMoments(ctx context.Context, o *momentsOptions, cmd *cobra.Command) erro
 		}
 		lines = exactLines(ex, D)
 	case o.mf.measure != "":
-		dm, err := moments.ReadMeasureFile(o.mf.measure)
+		dm, err := o.mf.readMeasure()
 		if err != nil {
 			return err
 		}

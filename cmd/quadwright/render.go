@@ -57,11 +57,14 @@ func writeText(w *strings.Builder, r *design.Rule) error {
 		digits = fmt.Sprintf("%d significant, each within one unit of its last place", r.Digits)
 	}
 	fmt.Fprintf(w, "# quadwright %s rule\n", r.Kind)
-	fmt.Fprintf(w, "# measure:  %s, weight %s on %s\n", r.Measure, r.Weight, r.Domain)
+	fmt.Fprintf(w, "# measure:  %s, weight %s on %s\n", r.Measure, r.Weight, domainLabel(r))
 	fmt.Fprintf(w, "# points:   %d\n", r.Points())
 	fmt.Fprintf(w, "# degree:   %d (verified on the printed values; largest residual %s times the tolerance)\n", r.Degree, maxRatio(r))
 	fmt.Fprintf(w, "# digits:   %s\n", digits)
 	fmt.Fprintf(w, "# precision: %d bits, confirmed against an independent computation at %d bits\n", r.WorkingPrec, r.CheckPrec)
+	if in := r.Input; in != nil {
+		fmt.Fprintf(w, "# input:    %s\n", inputLabel(in))
+	}
 	w.WriteString(s.TextBlock())
 	for _, note := range r.Notes {
 		fmt.Fprintf(w, "# note:     %s\n", note)
@@ -85,4 +88,20 @@ func padSign(s string) string {
 		return s
 	}
 	return " " + s
+}
+
+// domainLabel is the rule's support as the user stated it, or "support
+// not given" with the span of the nodes when none was stated.
+func domainLabel(r *design.Rule) string {
+	if !r.SupportUnknown {
+		return r.Domain.String()
+	}
+	return fmt.Sprintf("support not given (nodes span [%s, %s])", r.Nodes[0], r.Nodes[len(r.Nodes)-1])
+}
+
+// inputLabel states the bound and the measured estimate of the digits a
+// finite-digit input vouches for.
+func inputLabel(in *design.InputDigits) string {
+	return fmt.Sprintf("%d digits carried; the %d-point rule keeps %d by the bound (three sign patterns, one digit of margin), %d measured (largest relative change %.2g over %d seeded draws within half a unit of the last digit)",
+		in.Carried, in.Points, in.Bound, in.Measured, in.Spread, in.Draws)
 }
