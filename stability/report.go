@@ -112,6 +112,7 @@ func Audit(ctx context.Context, m design.Measure, nodes, weights []string, opt O
 	n := len(p.x)
 	dom := m.Domain()
 	r := &Report{Summary: p.summarize(dom), Measure: m.Label(), Weight: m.Weight(), Interval: dom.Strings(), Domain: dom.String()}
+	noteAuditSupport(r, m, p)
 	r.Digits, r.Exact = p.digits, p.exact
 	if p.exact {
 		r.Digits = max(r.Digits, ExactDigits)

@@ -66,6 +66,14 @@ type Summary struct {
 	// order, of the left node of that pair.
 	MinGap      Float `json:"min_gap"`
 	MinGapAfter int   `json:"min_gap_after"`
+	// Input is what a finite-digit input vouches for (see InputReport);
+	// nil for an exactly known measure.
+	Input *InputReport `json:"input_digits,omitempty"`
+	// Support is "not given" when the measure came without one (then
+	// NodeSpan holds the first and last node, and nodes outside are not
+	// counted); "" otherwise.
+	Support  string   `json:"support,omitempty"`
+	NodeSpan []string `json:"node_span,omitempty"`
 }
 
 // parsedRule holds a rule's printed values read as exact rationals.
@@ -183,6 +191,7 @@ func Summarize(r *design.Rule) (Summary, error) {
 	}
 	s := p.summarize(r.Domain)
 	s.Degree = r.Degree
+	noteInput(&s, r)
 	return s, nil
 }
 

@@ -24,8 +24,12 @@ func num(f Float) string {
 // the text rendering of a built rule.
 func (s Summary) TextBlock() string {
 	var b strings.Builder
-	fmt.Fprintf(&b, "# report:   %d negative weights, stability factor %s (lost digits %s), %d nodes outside the interval, %d on its ends, smallest gap %s\n",
-		s.NegativeWeights, num(s.StabilityFactor), num(s.LostDigits), s.NodesOutside, s.NodesOnBoundary, num(s.MinGap))
+	where := fmt.Sprintf("%d nodes outside the interval, %d on its ends", s.NodesOutside, s.NodesOnBoundary)
+	if s.Support != "" {
+		where = "nodes outside not counted (support " + s.Support + ")"
+	}
+	fmt.Fprintf(&b, "# report:   %d negative weights, stability factor %s (lost digits %s), %s, smallest gap %s\n",
+		s.NegativeWeights, num(s.StabilityFactor), num(s.LostDigits), where, num(s.MinGap))
 	return b.String()
 }
 

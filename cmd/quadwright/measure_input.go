@@ -1,6 +1,9 @@
 package main
 
-import "quadwright/moments"
+import (
+	"quadwright/design"
+	"quadwright/moments"
+)
 
 // exactDecimalsFlag is the flag that declares the decimals of a moment or
 // measure file exact.
@@ -24,4 +27,22 @@ func (mf measureFlags) readMeasure() (*moments.DiscreteMeasure, error) {
 		dm.DeclareExact()
 	}
 	return dm, err
+}
+
+// supportLabel is m's support as stated, or "support not given".
+func supportLabel(m design.Measure) string {
+	if s, ok := m.(design.SupportStater); ok && !s.SupportGiven() {
+		return "support not given"
+	}
+	return m.Domain().String()
+}
+
+// supportJSON is the "interval" of a JSON listing: the stated ends, or nil
+// (with "support": "not given" beside it) when none was stated.
+func supportJSON(m design.Measure, out map[string]any) {
+	if s, ok := m.(design.SupportStater); ok && !s.SupportGiven() {
+		out["interval"], out["support"] = nil, "not given"
+		return
+	}
+	out["interval"] = m.Domain().Strings()
 }

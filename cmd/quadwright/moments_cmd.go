@@ -114,10 +114,12 @@ func runMoments(ctx context.Context, o *momentsOptions, cmd *cobra.Command) erro
 		}
 		switch format {
 		case "json":
-			b, err := json.MarshalIndent(map[string]any{
-				"measure": m.Label(), "weight": m.Weight(), "interval": dom.Strings(),
+			js := map[string]any{
+				"measure": m.Label(), "weight": m.Weight(),
 				"basis": basis.Name, "digits": D, "count": K, "moments": vals, "zero_bounds": bounds,
-			}, "", "  ")
+			}
+			supportJSON(m, js)
+			b, err := json.MarshalIndent(js, "", "  ")
 			if err != nil {
 				return err
 			}
@@ -129,7 +131,7 @@ func runMoments(ctx context.Context, o *momentsOptions, cmd *cobra.Command) erro
 				fmt.Fprintf(out, "%d,%s\n", k, v)
 			}
 		default:
-			fmt.Fprintf(out, "# %s moments of %s, weight %s on %s\n", basis.Name, m.Label(), m.Weight(), dom)
+			fmt.Fprintf(out, "# %s moments of %s, weight %s on %s\n", basis.Name, m.Label(), m.Weight(), supportLabel(m))
 			fmt.Fprintf(out, "# digits: %d significant, each within one unit of its last place\n", D)
 			for k, v := range vals {
 				if bounds[k] != "" {

@@ -121,10 +121,12 @@ func runRecurrence(ctx context.Context, o *listOptions, cmd *cobra.Command) erro
 	return writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
 		switch format {
 		case "json":
-			b, err := json.MarshalIndent(map[string]any{
-				"measure": m.Label(), "weight": m.Weight(), "interval": m.Domain().Strings(),
+			out := map[string]any{
+				"measure": m.Label(), "weight": m.Weight(),
 				"digits": D, "count": K, "alpha": alpha, "beta": beta,
-			}, "", "  ")
+			}
+			supportJSON(m, out)
+			b, err := json.MarshalIndent(out, "", "  ")
 			if err != nil {
 				return err
 			}
@@ -136,7 +138,7 @@ func runRecurrence(ctx context.Context, o *listOptions, cmd *cobra.Command) erro
 				fmt.Fprintf(w, "%d,%s,%s\n", k, alpha[k], beta[k])
 			}
 		default:
-			fmt.Fprintf(w, "# recurrence of %s, weight %s on %s\n", m.Label(), m.Weight(), m.Domain())
+			fmt.Fprintf(w, "# recurrence of %s, weight %s on %s\n", m.Label(), m.Weight(), supportLabel(m))
 			fmt.Fprintf(w, "# pi_{k+1} = (x - alpha_k) pi_k - beta_k pi_{k-1}; beta_0 is the total mass\n")
 			fmt.Fprintf(w, "# digits: %d significant, confirmed at %d and %d bits\n", D, p, p+64)
 			writeColumns(w, []string{"k", "alpha", "beta"}, alpha, beta)
