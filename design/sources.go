@@ -29,6 +29,27 @@ type MomentSource struct {
 
 	cache recurrenceCache
 	loss  digitsNote
+	whole struct {
+		once sync.Once
+		err  error
+	}
+}
+
+// checkWholeList tests, once, every pair the whole list fixes against the
+// support (CheckSupport), so that a list is refused for any of its moments,
+// not only those a rule uses. When the whole list fits no positive measure
+// at all, the moments a request uses are still tested as they are used.
+func (s *MomentSource) checkWholeList() error {
+	s.whole.once.Do(func() {
+		if s.NoSupport || s.MaxLen() == 0 {
+			return
+		}
+		rec, err := s.pairs(s.MaxLen(), 128, nil)
+		if err == nil {
+			s.whole.err = CheckSupport(rec, s.Support)
+		}
+	})
+	return s.whole.err
 }
 
 // digitsNote remembers the outcome of the last SupportedDigits, so that
@@ -109,6 +130,9 @@ func (s *MomentSource) ExactlyKnown() bool {
 func (s *MomentSource) Recurrence(n int, prec uint) (*Recurrence, error) {
 	if n > s.MaxLen() {
 		return nil, fmt.Errorf("--moments %s: %d moments fix only %d recurrence pairs; %d pairs need %d moments", s.List.Name, len(s.List.Values), s.MaxLen(), n, 2*n)
+	}
+	if err := s.checkWholeList(); err != nil {
+		return nil, fmt.Errorf("--moments %s: %w", s.List.Name, err)
 	}
 	return s.cache.get(n, prec, func(n int, prec uint) (*Recurrence, error) {
 		rec, err := s.pairs(n, prec, nil)

@@ -17,9 +17,11 @@ type SupportError struct {
 }
 
 func (e *SupportError) Error() string {
-	side, form := "below the left end "+e.Support.Lo.String(), linearForm(e.Support.Lo.Value, false)
+	var side, form string
 	if e.Upper {
 		side, form = "above the right end "+e.Support.Hi.String(), linearForm(e.Support.Hi.Value, true)
+	} else {
+		side, form = "below the left end "+e.Support.Lo.String(), linearForm(e.Support.Lo.Value, false)
 	}
 	return fmt.Sprintf("these moments belong to no positive measure on %s: their %d-point Gauss rule has a node at or %s (the Hankel form of %s is not positive definite)",
 		e.Support, e.Points, side, form)
