@@ -26,6 +26,11 @@ import (
 // which are the Radau weights). Confirmation and verification are those
 // of Gauss.
 func Radau(ctx context.Context, m Measure, req Request, z *big.Rat) (*Rule, error) {
+	// The count first, so that digits advised by checkRequest are never
+	// followed by this refusal.
+	if err := needPairs(m, max(req.Points, 2*req.Points-2), fmt.Sprintf("a %d-point Radau rule", req.Points)); err != nil {
+		return nil, err
+	}
 	req, err := checkRequest(ctx, m, req, 0)
 	if err != nil {
 		return nil, err
@@ -107,6 +112,9 @@ func Radau(ctx context.Context, m Measure, req Request, z *big.Rat) (*Rule, erro
 // symmetric measure with a = -b, alpha' is exactly 0 (the rule is
 // symmetric, its middle node exactly 0).
 func Lobatto(ctx context.Context, m Measure, req Request, a, b *big.Rat) (*Rule, error) {
+	if err := needPairs(m, max(req.Points, 2*req.Points-3), fmt.Sprintf("a %d-point Lobatto rule", req.Points)); err != nil {
+		return nil, err // before checkRequest, as in Radau
+	}
 	req, err := checkRequest(ctx, m, req, 0)
 	if err != nil {
 		return nil, err
