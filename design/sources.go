@@ -35,13 +35,20 @@ type MomentSource struct {
 	}
 }
 
+// wholeListPairs bounds the lists checkWholeList tests: the raw-moment
+// Chebyshev algorithm needs precision growing with the length (about 1s
+// for 200 moments on [0,1], minutes for 2000), so a longer list is tested
+// on the moments each request uses, as they are used.
+const wholeListPairs = 64
+
 // checkWholeList tests, once, every pair the whole list fixes against the
 // support (CheckSupport), so that a list is refused for any of its moments,
 // not only those a rule uses. When the whole list fits no positive measure
-// at all, the moments a request uses are still tested as they are used.
+// at all, or is longer than wholeListPairs pairs, the moments a request
+// uses are still tested as they are used.
 func (s *MomentSource) checkWholeList() error {
 	s.whole.once.Do(func() {
-		if s.NoSupport || s.MaxLen() == 0 {
+		if s.NoSupport || s.MaxLen() == 0 || s.MaxLen() > wholeListPairs {
 			return
 		}
 		rec, err := s.pairs(s.MaxLen(), 128, nil)
