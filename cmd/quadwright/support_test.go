@@ -192,6 +192,13 @@ func TestDigitsAutoAndAdvice(t *testing.T) {
 			t.Errorf("%s --digits auto: exit %d, %s", f, code, errs)
 		}
 	}
+	writeFile(t, dir, "pts.txt", "-1 1/4\n0 1/2\n1 1/4\n")
+	if out, errs, code := run(t, dir, "build", "--measure", "pts.txt", "--points", "2", "--digits", "auto", "--format", "json"); code != 0 || digitsOf(t, out) != 34 {
+		t.Errorf("--measure --digits auto: exit %d, %s", code, errs)
+	}
+	if _, errs, code := run(t, dir, "build", "--family", "legendre", "--points", "2", "--exact-decimals"); code != 1 || !strings.Contains(errs, "--exact-decimals: only used with --moments or --measure") {
+		t.Errorf("--exact-decimals with a family: exit %d, %s", code, errs)
+	}
 	out, errs, code := run(t, dir, "build", "--moments", "gam.txt", "--points", "4", "--digits", "auto", "--exact-decimals", "--format", "json")
 	if code != 0 || digitsOf(t, out) != 34 {
 		t.Errorf("--exact-decimals --digits auto: exit %d, %s", code, errs)
