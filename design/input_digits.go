@@ -13,24 +13,34 @@ import (
 // moment list or discrete measure) vouches for in its Points-point Gauss
 // rule, by two measures of the same loss:
 //
-//   - Bound is the figure that limits --digits (SupportedDigits): the rule
-//     rebuilt from the data moved by half a unit in their last digit in
-//     three sign patterns, less one digit of margin.
-//   - Measured is floor(-log10(Spread)), Spread the largest relative change
-//     of a node or weight over Draws rebuilds from data moved by amounts
-//     drawn uniformly within half a unit in their last digit (seeded, so
-//     the figure is reproducible); both at most Carried.
+//   - Bound is the figure that limits --digits (SupportedDigits), found as
+//     BoundMethod says: "first-order worst case" (moment lists of at most
+//     firstOrderPairs pairs: the largest linearised change over every
+//     perturbation within half a unit of the last digit) or "three sign
+//     patterns, less a digit" (longer lists and discrete measures).
+//   - Measured is floor(-log10(2 Spread)), Spread the largest relative
+//     change of a node or weight over Draws rebuilds from data moved by
+//     amounts drawn uniformly within half a unit in their last digit
+//     (seeded, so the figure is reproducible): the same rule as the
+//     first-order bound, applied to the draws. Both at most Carried.
 //
 // The gap between them shows how pessimistic the bound is for these data.
 type InputDigits struct {
-	Carried  int     `json:"carried"`
-	Points   int     `json:"points"`
-	Bound    int     `json:"bound"`
-	Measured int     `json:"measured"`
-	Spread   float64 `json:"spread"`
-	Draws    int     `json:"draws"`
-	Seed     uint64  `json:"seed"`
+	Carried     int     `json:"carried"`
+	Points      int     `json:"points"`
+	Bound       int     `json:"bound"`
+	BoundMethod string  `json:"bound_method"`
+	Measured    int     `json:"measured"`
+	Spread      float64 `json:"spread"`
+	Draws       int     `json:"draws"`
+	Seed        uint64  `json:"seed"`
 }
+
+// The two ways SupportedDigits finds its bound (InputDigits.BoundMethod).
+const (
+	boundFirstOrder   = "first-order worst case"
+	boundSignPatterns = "three sign patterns, less a digit"
+)
 
 // Draws and seed of the measured estimate. Eight draws put the spread
 // within a small factor of its typical size (common practice for such
@@ -98,6 +108,7 @@ func measureSpread(ctx context.Context, in *InputDigits, base *Recurrence, prec 
 		return nil
 	}
 	in.Spread, _ = worst.Float64()
+	worst.Mul(worst, big.NewFloat(2))
 	in.Measured = max(0, min(digitsOfChange(worst), in.Carried))
 	return nil
 }
@@ -119,7 +130,10 @@ func (s *MomentSource) DescribeInput(ctx context.Context) (*InputDigits, error) 
 	if !set {
 		return nil, nil
 	}
-	in := &InputDigits{Carried: given, Points: n, Bound: kept}
+	in := &InputDigits{Carried: given, Points: n, Bound: kept, BoundMethod: boundSignPatterns}
+	if n <= firstOrderPairs {
+		in.BoundMethod = boundFirstOrder
+	}
 	prec := precision.WorkingPrec(given+8, n)
 	base, err := s.Recurrence(n, prec)
 	if err != nil {
@@ -143,7 +157,7 @@ func (s *DiscreteSource) DescribeInput(ctx context.Context) (*InputDigits, error
 	if !set {
 		return nil, nil
 	}
-	in := &InputDigits{Carried: given, Points: n, Bound: kept}
+	in := &InputDigits{Carried: given, Points: n, Bound: kept, BoundMethod: boundSignPatterns}
 	prec := precision.WorkingPrec(given+8, n)
 	base, err := s.Recurrence(n, prec)
 	if err != nil {

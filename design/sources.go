@@ -193,12 +193,14 @@ func basisPairs(basis moments.Basis, m int, w uint) (a, b []*big.Float) {
 // digits among the decimals of the first 2n (so that exact short values
 // such as 1 or 0.25 do not lower it, as in the audit's rule), every decimal
 // moment is taken as known to half a unit in its D0-th digit (or in its last
-// written place, if that is finer), and the rule is recomputed from moments perturbed by that
-// much in three sign patterns (all +, alternating, pseudo-random): D =
-// floor(-log10(r)) - 1, r the largest relative change of a node or weight,
-// capped at D0. The one digit of
-// margin covers perturbations worse than the three tried (first-order
-// estimate, common practice).
+// written place, if that is finer). For n <= firstOrderPairs, D is the
+// first-order worst case over all those perturbations (firstOrderDigits).
+// Above, where 2n rebuilds cost too much, the rule is recomputed from
+// moments perturbed by that much in three sign patterns (all +,
+// alternating, pseudo-random): D = floor(-log10(r)) - 1, r the largest
+// relative change of a node or weight, capped at D0; the one digit of
+// margin covers perturbations worse than the three tried (an estimate,
+// common practice, not a bound).
 func (s *MomentSource) SupportedDigits(ctx context.Context, n int) (int, error) {
 	if 2*n > len(s.List.Values) {
 		_, err := s.Recurrence(n, 64)
@@ -218,6 +220,13 @@ func (s *MomentSource) SupportedDigits(ctx context.Context, n int) (int, error) 
 	base, err := s.Recurrence(n, prec)
 	if err != nil {
 		return 0, err
+	}
+	if n <= firstOrderPairs {
+		kept, err := s.firstOrderDigits(ctx, base, n, prec, cap)
+		if err == nil {
+			s.loss.record(cap, kept, n)
+		}
+		return kept, err
 	}
 	var trials []*Recurrence
 	for _, pat := range signPatterns(2 * n) {

@@ -12,13 +12,14 @@ import (
 // limits --digits, and the measured spread of the rule over seeded draws
 // of the data within their written digits.
 type InputReport struct {
-	Carried  int    `json:"carried"`
-	Points   int    `json:"points"`
-	Bound    int    `json:"bound"`
-	Measured int    `json:"measured"`
-	Spread   Float  `json:"spread"`
-	Draws    int    `json:"draws"`
-	Seed     uint64 `json:"seed"`
+	Carried     int    `json:"carried"`
+	Points      int    `json:"points"`
+	Bound       int    `json:"bound"`
+	BoundMethod string `json:"bound_method"`
+	Measured    int    `json:"measured"`
+	Spread      Float  `json:"spread"`
+	Draws       int    `json:"draws"`
+	Seed        uint64 `json:"seed"`
 }
 
 // noteInput fills in what r says about its input: its InputDigits, and
@@ -31,7 +32,7 @@ func noteInput(s *Summary, r *design.Rule) {
 		if math.IsInf(in.Spread, 0) {
 			spread = Float(math.Inf(1))
 		}
-		s.Input = &InputReport{Carried: in.Carried, Points: in.Points, Bound: in.Bound, Measured: in.Measured, Spread: spread, Draws: in.Draws, Seed: in.Seed}
+		s.Input = &InputReport{Carried: in.Carried, Points: in.Points, Bound: in.Bound, BoundMethod: in.BoundMethod, Measured: in.Measured, Spread: spread, Draws: in.Draws, Seed: in.Seed}
 	}
 	if r.SupportUnknown && len(r.Nodes) > 0 {
 		s.Support = "not given"

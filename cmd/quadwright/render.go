@@ -102,6 +102,6 @@ func domainLabel(r *design.Rule) string {
 // inputLabel states the bound and the measured estimate of the digits a
 // finite-digit input vouches for.
 func inputLabel(in *design.InputDigits) string {
-	return fmt.Sprintf("%d digits carried; the %d-point rule keeps %d by the bound (three sign patterns, one digit of margin), %d measured (largest relative change %.2g over %d seeded draws within half a unit of the last digit)",
-		in.Carried, in.Points, in.Bound, in.Measured, in.Spread, in.Draws)
+	return fmt.Sprintf("%d digits carried; the %d-point rule keeps %d by the bound (%s), %d measured (largest relative change %.2g over %d seeded draws within half a unit of the last digit)",
+		in.Carried, in.Points, in.Bound, in.BoundMethod, in.Measured, in.Spread, in.Draws)
 }
