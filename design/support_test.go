@@ -8,6 +8,7 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+	"time"
 
 	"quadwright/moments"
 )
@@ -224,6 +225,11 @@ func FuzzCheckSupport(f *testing.F) {
 		src := NewMomentSource(ml, moments.MonomialBasis(), sup)
 		if n := src.MaxLen(); n > 0 {
 			_, _ = src.Recurrence(n, 96)
+			ctx, cancel := context.WithTimeout(context.Background(), 2*time.Second)
+			defer cancel()
+			if _, err := src.SupportedDigits(ctx, min(n, 3)); err == nil {
+				_, _ = src.DescribeInput(ctx)
+			}
 		}
 	})
 }
