@@ -17,8 +17,7 @@ type ElementOptions struct {
 	// rule's own digits (ExactDigits when a value is an exact fraction).
 	Unit *big.Rat
 	// MaxDegree, when > 0, is the highest total degree tested; otherwise
-	// the largest d with C(d+dim, dim) <= (dim+1) N (no N-point rule can
-	// fix more moments than it has free values), at most
+	// one past the highest degree N points allow (pointBound), at most
 	// element.MaxDegree (element.MaxWeightedDegree for a weight).
 	MaxDegree int
 	// Weight is the weight expression in the element's coordinates; "" or
@@ -51,6 +50,9 @@ type ElementReport struct {
 	Unit         string `json:"unit"`
 	Tolerance    string `json:"tolerance"`
 	DegreeTested int    `json:"degree_tested_to"`
+	// DegreeBound is the highest degree the point count allows for a
+	// positive weight (pointBound); testing stops one past it by default.
+	DegreeBound int `json:"degree_bound"`
 	// WorstShare is the largest residual over the monomials of the degrees
 	// that passed, as a share of the tolerance.
 	WorstShare Float `json:"largest_residual_share"`
@@ -135,12 +137,12 @@ func AuditElement(ctx context.Context, s element.Shape, nodes [][]string, weight
 	rep.Mass = ratFloat(sum)
 
 	weighted := strings.TrimSpace(opt.Weight) != "" && strings.TrimSpace(opt.Weight) != "1"
+	rep.DegreeBound = pointBound(dim, n)
 	maxDeg := opt.MaxDegree
 	if maxDeg <= 0 {
-		maxDeg = 0
-		for binom(maxDeg+1+dim, dim) <= (dim+1)*n {
-			maxDeg++
-		}
+		// One past the bound: that degree must fail, so the degree found
+		// is the true one, not a lower bound.
+		maxDeg = rep.DegreeBound + 1
 		lim := element.MaxDegree(s)
 		if weighted {
 			lim = element.MaxWeightedDegree(s)
@@ -183,6 +185,21 @@ func AuditElement(ctx context.Context, s element.Shape, nodes [][]string, weight
 	return rep, nil
 }
 
+// pointBound is the highest degree an n-point rule on a dim-dimensional
+// element can integrate for a positive weight: 2k+1 with k the largest
+// such that C(k+dim, dim) <= n. A rule of degree 2k+2 would integrate p^2
+// for every p of degree k+1; if the C(k+1+dim, dim) > n such p are too
+// many, one of them vanishes at every node, and the rule gives 0 for the
+// positive integral of w p^2 (common practice: the lower bound on the
+// points of a cubature rule of given degree).
+func pointBound(dim, n int) int {
+	k := 0
+	for binom(k+1+dim, dim) <= n {
+		k++
+	}
+	return 2*k + 1
+}
+
 func binom(n, k int) int {
 	r := 1
 	for i := 1; i <= k; i++ {
@@ -207,6 +224,8 @@ func (r *ElementReport) WriteText(w io.Writer, title string) error {
 		deg = "-1 (the constant is not integrated)"
 	case r.Degree == r.DegreeTested:
 		deg += " (at least: every degree tested passed)"
+	case r.Degree == r.DegreeBound:
+		deg += fmt.Sprintf(" (the most %d points allow on the %s for a positive weight)", r.Points, r.Shape)
 	}
 	fmt.Fprintf(&b, "  degree:            %s; monomials tested through total degree %d, largest residual %.2g of the tolerance\n", deg, r.DegreeTested, float64(r.WorstShare))
 	fmt.Fprintf(&b, "  tolerance:         10u = %s (u %s)\n", r.Tolerance, unitSource(r))

@@ -29,6 +29,8 @@ type auditOptions struct {
 	failOn    string
 	quick     bool
 	shape     string
+	// inferredShape: the table named no element and InferElement chose it.
+	inferredShape bool
 }
 
 func newAuditCommand() *cobra.Command {
@@ -131,6 +133,10 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 			return fmt.Errorf("rule file %s: its nodes have %d coordinates, but a rule on the %s needs %d", path, file.Dim(), shape, shape.Dim())
 		}
 		isElement = true
+	}
+	if !isElement && file.Dim() >= 2 {
+		shape, isElement = file.InferElement()
+		o.inferredShape = isElement
 	}
 	if isElement {
 		return runElementAudit(ctx, o, file, shape, path, format, checks, opt.Unit, opt.MaxDegree, cmd)

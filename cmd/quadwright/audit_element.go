@@ -56,6 +56,9 @@ func runElementAudit(ctx context.Context, o *auditOptions, file *rulefile.File, 
 	if err != nil {
 		return fmt.Errorf("rule file %s: %v", path, err)
 	}
+	if o.inferredShape {
+		rep.Notes = append(rep.Notes, fmt.Sprintf("the table names no element: it is taken as the %s, which holds every node and whose %s its weights sum to (give --shape to choose another)", shape, sizeWord(shape)))
+	}
 	err = writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
 		switch format {
 		case "json":
@@ -85,4 +88,11 @@ func nodesOf(f *rulefile.File) [][]string {
 
 func coordNames(s element.Shape) string {
 	return strings.Join([]string{"x", "y", "z"}[:s.Dim()], ", ")
+}
+
+func sizeWord(s element.Shape) string {
+	if s.Dim() == 2 {
+		return "area"
+	}
+	return "volume"
 }

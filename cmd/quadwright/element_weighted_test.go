@@ -168,7 +168,15 @@ func TestAuditElementRules(t *testing.T) {
 	if code != 0 || rep.Degree != 1 || rep.Symmetry.Order != 6 {
 		t.Errorf("centroid rule: exit %d, %+v; want degree 1, fully symmetric", code, rep)
 	}
-	expectInputError(t, dir, []string{"audit", "centroid.txt"}, "--shape")
+	// Without --shape the table's weights, summing to the triangle's area
+	// with the node inside it, name the triangle (issue 19: every output
+	// of element audits without flags); a table that fits no element
+	// still needs --shape.
+	if rep, _, code = elementAuditJSON(t, dir, "centroid.txt"); code != 0 || rep.Symmetry.Group != "S3" || rep.Degree != 1 {
+		t.Errorf("centroid rule without --shape: exit %d, %+v", code, rep)
+	}
+	os.WriteFile(filepath.Join(dir, "unnamed.txt"), []byte("0.2 0.2 1\n"), 0o644)
+	expectInputError(t, dir, []string{"audit", "unnamed.txt"}, "--shape")
 	expectInputError(t, dir, []string{"audit", "quad.json", "--family", "legendre"}, "--family")
 	out, errs, code := run(t, dir, "audit", "sym.json")
 	if code != 0 || !strings.Contains(out, "fully symmetric") || !strings.Contains(out, "degree:            7") {
