@@ -14,8 +14,8 @@ import (
 // weight 1 on [-1, 1]"). Comments of any other shape are left alone, so a
 // hand-written table reads as before.
 type tableHeader struct {
-	shape, weight string
-	interval      []string
+	shape, weight, measure string
+	interval               []string
 }
 
 // readComment takes what it can from one comment (the text after '#').
@@ -32,6 +32,9 @@ func (h *tableHeader) readComment(c string) {
 		v = strings.TrimSpace(v)
 		if i := strings.LastIndex(v, " (the rule integrates"); i >= 0 {
 			v = strings.TrimSpace(v[:i])
+		}
+		if f, ok := strings.CutPrefix(v, "the weight whose moments are listed in "); ok {
+			v = "moments(" + f + ")"
 		}
 		h.weight = v
 		return
@@ -52,8 +55,10 @@ func (h *tableHeader) readComment(c string) {
 			return
 		}
 		h.interval = []string{a, b}
-		if k := strings.Index(v, "weight "); k >= 0 && k+len("weight ") <= i {
-			h.weight = strings.TrimSpace(v[k+len("weight ") : i])
+		h.measure = strings.TrimSpace(v[:i])
+		if k := strings.Index(v, ", weight "); k >= 0 && k+len(", weight ") <= i {
+			h.weight = strings.TrimSpace(v[k+len(", weight ") : i])
+			h.measure = strings.TrimSpace(v[:k])
 		}
 	}
 }
@@ -68,6 +73,9 @@ func (h *tableHeader) apply(f *File) {
 	}
 	if h.weight != "" {
 		f.Weight = h.weight
+	}
+	if h.measure != "" {
+		f.Measure = h.measure
 	}
 	if h.shape == "" && len(h.interval) == 2 && isFinite(h.interval[0]) && isFinite(h.interval[1]) {
 		f.Domain.Interval = h.interval

@@ -7,6 +7,7 @@ import (
 	"math/big"
 	"strings"
 
+	"quadwright/design"
 	"quadwright/design/element"
 	"quadwright/precision"
 )
@@ -217,7 +218,7 @@ func ratText(r *big.Rat) string {
 // WriteText writes the report as a few labelled lines.
 func (r *ElementReport) WriteText(w io.Writer, title string) error {
 	var b strings.Builder
-	fmt.Fprintf(&b, "audit of %s: a %d-point rule on the reference %s, weight %s\n", title, r.Points, r.Shape, r.Weight)
+	fmt.Fprintf(&b, "audit of %s: a %d-point rule on the reference %s, weight %s\n", title, r.Points, r.Shape, design.WeightName(r.Weight))
 	deg := fmt.Sprintf("%d", r.Degree)
 	switch {
 	case r.Degree < 0:

@@ -82,7 +82,7 @@ group under which the rule is invariant to its own digits.`,
 	f.Lookup("interval").Usage += "; alone, weight 1 on [A,B] for a rule file that names no measure"
 	f.StringVar(&o.tolerance, "tolerance", "", "relative accuracy u of every node and weight, decimal or p/q, 0 < u < 1 (default: 10^(1-D), D the rule's own digits)")
 	f.StringVar(&o.maxDegree, "max-degree", "", "highest degree to test (default 2N+1, lowered to what the measure provides)")
-	f.StringVar(&o.format, "format", "text", "output format: text, json or html (html: a self-contained page with inline plots)")
+	f.StringVar(&o.format, "format", "text", "output format: text, json, csv or html (csv: the residual by degree, for plots; html: a self-contained page with inline plots)")
 	f.StringVarP(&o.output, "output", "o", "", "write the report to this file (atomically) instead of standard output")
 	f.StringVar(&o.failOn, "fail-on", "", "comma-separated conditions that make the exit status 2: negative, outside, degree<K, lost>L (L in decimal digits)")
 	f.BoolVar(&o.quick, "quick", false, "leave out the test integrands and the matrix conditioning")
@@ -95,8 +95,8 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 		ctx = context.Background()
 	}
 	format := strings.ToLower(strings.TrimSpace(o.format))
-	if format != "text" && format != "json" && format != "html" {
-		return fmt.Errorf("--format %q: choose text, json or html", o.format)
+	if format != "text" && format != "json" && format != "html" && format != "csv" {
+		return fmt.Errorf("--format %q: choose text, json, csv or html", o.format)
 	}
 	checks, err := parseFailOn(o.failOn)
 	if err != nil {
@@ -163,6 +163,8 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 			w.WriteString("\n")
 		case "html":
 			return rep.WriteHTML(w, path, cautionText)
+		case "csv":
+			return writeResidualCSV(w, rep)
 		default:
 			if err := rep.WriteText(w, path); err != nil {
 				return err
@@ -197,6 +199,9 @@ func (o *auditOptions) resolveAuditMeasure(ctx context.Context, f *rulefile.File
 	if b.family != "" || b.weight != "" || b.momentsFile != "" || b.measure != "" {
 		m, _, err := b.resolve(ctx)
 		return m, err
+	}
+	if err := fileMeasureHint(f, path); err != nil {
+		return nil, err
 	}
 	domain := ""
 	if len(f.Domain.Interval) == 2 {
@@ -284,11 +289,11 @@ func checkThresholds(checks []failCheck, r auditFacts) error {
 		switch c.kind {
 		case "negative":
 			if r.NegativeWeights > 0 {
-				failed = append(failed, fmt.Sprintf("%d negative weights", r.NegativeWeights))
+				failed = append(failed, design.Plural(r.NegativeWeights, "negative weight", "negative weights"))
 			}
 		case "outside":
 			if r.NodesOutside > 0 {
-				failed = append(failed, fmt.Sprintf("%d nodes outside the %s", r.NodesOutside, r.domain))
+				failed = append(failed, design.Plural(r.NodesOutside, "node", "nodes")+" outside the "+r.domain)
 			}
 		case "degree":
 			if r.Degree < c.degree {

@@ -19,6 +19,8 @@ type buildOptions struct {
 	fixed, nodesFile             string
 	output                       string
 	engine, verify               string // the fast path (build_fast.go)
+	failOn                       string // build_failon.go
+	fastFacts                    *auditFacts
 }
 
 func newBuildCommand() *cobra.Command {
@@ -82,6 +84,7 @@ points = 12, interval = "0,1", ...); flags given beside it override it.`,
 	f.StringVarP(&o.output, "output", "o", "", "write the rule to this file (atomically) instead of standard output")
 	f.StringVar(&o.engine, "engine", "auto", fmt.Sprintf("auto: the fast float64 path (design/fast) in float64 mode from %d points for the families and kinds it serves (and up to %d points, beyond the engine's %d), else the extended-precision engine; fast or extended to choose", design.FastThreshold, design.FastMaxPoints, design.MaxPoints))
 	f.StringVar(&o.verify, "verify", "budget", "fast path exactness test: budget (through degree 2N-1 while N(K+1) <= 2e8 recurrence steps, else to the degree K that allows; degree reports what was tested) or full (through 2N-1 at any N: O(N^2))")
+	addBuildFailOn(cmd, o)
 	return cmd
 }
 
@@ -90,6 +93,10 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 		ctx = context.Background()
 	}
 	format, err := parseFormat(o.format)
+	if err != nil {
+		return err
+	}
+	checks, err := parseFailOn(o.failOn)
 	if err != nil {
 		return err
 	}
@@ -120,16 +127,23 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 		return err
 	} else if useFast {
 		defer done()
-		return o.runFastBuild(ctx, *fam, kind, n, format, cmd.OutOrStdout())
+		if err := o.runFastBuild(ctx, *fam, kind, n, format, cmd.OutOrStdout()); err != nil {
+			return err
+		}
+		return checkBuilt(checks, func() (auditFacts, error) { return *o.fastFacts, nil })
 	}
 	rule, err := o.makeRule(ctx, m, req)
 	done()
 	if err != nil {
 		return err
 	}
-	return writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
+	err = writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
 		return writeRule(w, rule, fam, format)
 	})
+	if err != nil {
+		return err
+	}
+	return checkBuilt(checks, func() (auditFacts, error) { return ruleFacts(rule) })
 }
 
 func parseFormat(s string) (string, error) {
