@@ -65,6 +65,8 @@ type Report struct {
 	// RelResidual[j] is the residual itself, the ratio above before the
 	// division by 10u (design.Exactness.Ratio), for tables and plots.
 	RelResidual []Float `json:"residual"`
+	// Accuracy says what the residuals imply for the values (accuracy.go).
+	Accuracy *Accuracy `json:"accuracy,omitempty"`
 	// MostNegative is the most negative weight as printed, at the 1-based
 	// MostNegativeIndex (0 and "" when no weight is negative); NegativeMass
 	// is the sum of the negative weights, NegativeShare its absolute value
@@ -163,6 +165,7 @@ func Audit(ctx context.Context, m design.Measure, nodes, weights []string, opt O
 		r.productTest(ctx, m, p, nodes, weights, opt, wanted)
 	}
 	r.capAtNodePolynomial(m, n)
+	r.Accuracy = impliedAccuracy(r)
 	r.Nodes, r.Weights = make([]float64, n), make([]float64, n)
 	for i := range p.x {
 		r.Nodes[i], _ = p.x[i].Float64()

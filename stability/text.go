@@ -95,6 +95,9 @@ func (r *Report) WriteText(w io.Writer, title string) error {
 	if end < len(r.Residual) {
 		fmt.Fprintf(&b, "               (degrees %d to %d: see --format json)\n", end, len(r.Residual)-1)
 	}
+	if r.Accuracy != nil {
+		fmt.Fprintf(&b, "accuracy:      %s\n", r.Accuracy.Text)
+	}
 	if r.NegativeWeights == 0 {
 		fmt.Fprintf(&b, "weights:       none negative; sum %s (measure's mass %s)\n", num(r.Mass), num(r.MeasureMass))
 	} else {
