@@ -127,16 +127,19 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 		return err
 	} else if useFast {
 		defer done()
+		design.ReportPhase(ctx, "fast float64 path")
+		clearBeforeStdout(o.output, done)
 		if err := o.runFastBuild(ctx, *fam, kind, n, format, cmd.OutOrStdout()); err != nil {
 			return err
 		}
 		return checkBuilt(checks, func() (auditFacts, error) { return *o.fastFacts, nil })
 	}
 	rule, err := o.makeRule(ctx, m, req)
-	done()
 	if err != nil {
 		return err
 	}
+	design.ReportPhase(ctx, "writing")
+	clearBeforeStdout(o.output, done)
 	err = writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
 		return writeRule(w, rule, fam, format)
 	})
