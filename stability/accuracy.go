@@ -1,8 +1,13 @@
 package stability
 
 import (
+	"context"
 	"fmt"
 	"math"
+	"math/big"
+
+	"quadwright/design/element"
+	"quadwright/precision"
 )
 
 // Accuracy is what the residuals by degree say about the accuracy of the
@@ -44,17 +49,27 @@ const JumpFactor = 100
 // fails). It returns nil when fewer than one degree was tested or no
 // residual is known.
 func impliedAccuracy(r *Report) *Accuracy {
-	res := r.RelResidual
-	if len(res) == 0 || len(res) != len(r.Residual) {
-		return nil
-	}
-	from := max(r.Degree, 0)
 	// No N-point rule integrates the square of its node polynomial
 	// (capAtNodePolynomial), so K stays at most 2N-1 unless the measure
 	// itself has so few points that the verified degree goes beyond.
-	last := len(res) - 1
+	bound := -1
 	if r.Degree <= 2*r.Points-1 {
-		last = min(last, 2*r.Points-1)
+		bound = 2*r.Points - 1
+	}
+	return accuracyOf(r.RelResidual, r.Residual, r.Degree, bound, r.Digits)
+}
+
+// accuracyOf is impliedAccuracy on residuals res[j] and their shares of
+// the tolerance share[j] by degree j, for a rule of verified degree that
+// cannot pass beyond bound (-1: no bound known), printed to digits digits.
+func accuracyOf(res, share []Float, degree, bound, digits int) *Accuracy {
+	if len(res) == 0 || len(res) != len(share) {
+		return nil
+	}
+	from := max(degree, 0)
+	last := len(res) - 1
+	if bound >= 0 {
+		last = min(last, bound)
 	}
 	best := -1
 	upTo := 0.0
@@ -78,31 +93,51 @@ func impliedAccuracy(r *Report) *Accuracy {
 		}
 	}
 	if best < 0 {
-		if r.Degree < last {
+		if degree < last {
 			return nil // no clear end of exactness among the degrees tested
 		}
 		best = last
 	}
 	a := &Accuracy{Degree: best}
-	worst, share := 0.0, 0.0
+	worst, most := 0.0, 0.0
 	for j := 0; j <= best; j++ {
 		worst = math.Max(worst, float64(res[j]))
-		share = math.Max(share, float64(r.Residual[j]))
+		most = math.Max(most, float64(share[j]))
 	}
-	a.Residual, a.WithinTolerance = Float(worst), share <= 1
+	a.Residual, a.WithinTolerance = Float(worst), most <= 1
 	switch {
 	case worst == 0:
 		a.Text = fmt.Sprintf("the residuals through degree %d are zero: the values are exact for it", best)
 	case a.WithinTolerance:
 		a.Digits = digitsOf(worst)
-		a.Text = fmt.Sprintf("the residuals through degree %d reach %.1e, within what the %d digits of the values explain", best, worst, r.Digits)
+		a.Text = fmt.Sprintf("the residuals through degree %d reach %.1e, within what the %d digits of the values explain", best, worst, digits)
 	default:
 		a.Digits = digitsOf(worst)
-		a.Text = fmt.Sprintf("the residuals through degree %d reach %.1e: the nodes and weights are good to about %d digits, not the %d they are printed to; at that accuracy the rule reaches degree %d", best, worst, a.Digits, r.Digits, best)
+		a.Text = fmt.Sprintf("the residuals through degree %d reach %.1e: the nodes and weights are good to about %d digits, not the %d they are printed to; at that accuracy the rule reaches degree %d", best, worst, a.Digits, digits, best)
 	}
 	return a
 }
 
 func digitsOf(residual float64) int {
 	return max(0, int(math.Floor(-math.Log10(residual))))
+}
+
+// elementAccuracy is impliedAccuracy for an element rule: the residuals by
+// total degree (element.DegreeResiduals, at the bits the exactness test
+// used) through the degree tested, bounded by the degree the point count
+// allows.
+func elementAccuracy(ctx context.Context, s element.Shape, xs [][]*big.Rat, ws []*big.Rat, u, slack *big.Rat, ex element.Exactness, integral element.Integral, bound int) (*Accuracy, error) {
+	prec := precision.DigitsToBits(ex.Digits) + 64
+	if uBits := u.Denom().BitLen() - u.Num().BitLen() + 1; uBits > 0 {
+		prec = max(prec, uint(uBits)+64)
+	}
+	rel, share, err := element.DegreeResiduals(ctx, s, xs, ws, u, slack, ex.Tested, prec, integral)
+	if err != nil {
+		return nil, err
+	}
+	r, sh := make([]Float, len(rel)), make([]Float, len(share))
+	for j := range rel {
+		r[j], sh[j] = Float(rel[j]), Float(share[j])
+	}
+	return accuracyOf(r, sh, ex.Degree, bound, ex.Digits), nil
 }

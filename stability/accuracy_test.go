@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"quadwright/design"
+	"quadwright/design/element"
 )
 
 // TestImpliedAccuracy: every weight of the 10-point Gauss-Legendre rule
@@ -70,5 +71,37 @@ func TestImpliedAccuracyNoJump(t *testing.T) {
 	r.RelResidual = []Float{1e-16, 2e-16, 3e-15, 4e-15, 5e-15, 6e-15}
 	if a := impliedAccuracy(r); a != nil {
 		t.Errorf("no jump: %+v", a)
+	}
+}
+
+// TestElementImpliedAccuracy: the catalogued 7-point degree-5 triangle rule
+// (the most 7 points allow: pointBound) with its weights changed by a
+// relative 1e-11 fails the constant at its 17 digits; the audit says the
+// values are good to about 11 digits and reach degree 5 at that accuracy.
+func TestElementImpliedAccuracy(t *testing.T) {
+	r, err := element.Build(context.Background(), element.Request{Shape: element.Triangle, Degree: 5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	w := make([]string, len(r.Weights))
+	for i, s := range r.Weights {
+		v, _ := new(big.Rat).SetString(s)
+		f := big.NewRat(100000000001, 100000000000)
+		if i%3 == 0 {
+			f = big.NewRat(99999999999, 100000000000)
+		}
+		w[i] = new(big.Rat).Mul(v, f).FloatString(20)
+	}
+	rep, err := AuditElement(context.Background(), element.Triangle, r.Nodes, w, ElementOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	a := rep.Accuracy
+	if rep.Degree >= 5 || a == nil || a.WithinTolerance || a.Degree != 5 || a.Digits < 10 || a.Digits > 12 {
+		t.Fatalf("degree %d, accuracy %+v", rep.Degree, a)
+	}
+	rep, err = AuditElement(context.Background(), element.Triangle, r.Nodes, r.Weights, ElementOptions{})
+	if err != nil || rep.Accuracy == nil || !rep.Accuracy.WithinTolerance || rep.Accuracy.Degree != 5 {
+		t.Errorf("unperturbed: %v %+v", err, rep.Accuracy)
 	}
 }

@@ -62,7 +62,9 @@ type ElementReport struct {
 	Mass        Float          `json:"mass"`
 	MeasureMass Float          `json:"measure_mass"`
 	Symmetry    SymmetryReport `json:"symmetry"`
-	Notes       []string       `json:"notes,omitempty"`
+	// Accuracy says what the residuals imply for the values (accuracy.go).
+	Accuracy *Accuracy `json:"accuracy,omitempty"`
+	Notes    []string  `json:"notes,omitempty"`
 }
 
 // AuditElement audits the printed rule (nodes[i] with s.Dim() coordinates,
@@ -177,6 +179,9 @@ func AuditElement(ctx context.Context, s element.Shape, nodes [][]string, weight
 		return nil, err
 	}
 	rep.Degree, rep.DegreeTested, rep.WorstShare = ex.Degree, ex.Tested, Float(ex.WorstShare)
+	if rep.Accuracy, err = elementAccuracy(ctx, s, xs, ws, u, slack, ex, integral, rep.DegreeBound); err != nil {
+		return nil, err
+	}
 	if integral != nil {
 		rep.MeasureMass = ratFloat(integral(make([]int, dim)))
 	} else {
@@ -235,6 +240,9 @@ func (r *ElementReport) WriteText(w io.Writer, title string) error {
 	fmt.Fprintf(&b, "  nodes outside:     %d (outside the closed %s); %d on its boundary\n", r.NodesOutside, r.Shape, r.NodesOnBoundary)
 	fmt.Fprintf(&b, "  mass:              %s (integral of the weight over the %s: %s)\n", num(r.Mass), r.Shape, num(r.MeasureMass))
 	fmt.Fprintf(&b, "  symmetry:          %s\n", r.Symmetry.describe(r.Shape))
+	if r.Accuracy != nil {
+		fmt.Fprintf(&b, "  accuracy:          %s\n", r.Accuracy.Text)
+	}
 	for _, n := range r.Notes {
 		fmt.Fprintf(&b, "  note: %s\n", n)
 	}
