@@ -55,9 +55,12 @@ func Parse(name string, data []byte) (*File, error) {
 	}
 	var f *File
 	var err error
-	if trimmed[0] == '{' {
+	switch {
+	case trimmed[0] == '{':
 		f, err = parseJSON(name, trimmed)
-	} else {
+	case isExport(trimmed):
+		f, err = parseExport(name, trimmed)
+	default:
 		f, err = parseTable(name, data)
 	}
 	if err != nil {

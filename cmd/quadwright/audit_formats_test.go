@@ -47,6 +47,22 @@ func TestAuditEveryElementFormat(t *testing.T) {
 			}
 		}
 	}
+	// The source-code exports read back too, with every digit of their
+	// extended arrays.
+	if _, errs, code := run(t, dir, "element", "--shape", "prism", "--degree", "4", "--digits", "25", "--format", "json", "-o", "p4.json"); code != 0 {
+		t.Fatal(errs)
+	}
+	ref, _, _ := elementAuditJSON(t, dir, "p4.json", "--quick")
+	for _, lang := range []string{"c", "cpp", "fortran", "go", "python", "julia"} {
+		file := "p4." + lang
+		if _, errs, code := run(t, dir, "export", "p4.json", "--to", lang, "-o", file); code != 0 {
+			t.Fatalf("export %s: %s", lang, errs)
+		}
+		rep, raw, code := elementAuditJSON(t, dir, file, "--quick")
+		if code != 0 || rep.Degree != ref.Degree || raw["digits"].(float64) < 25 {
+			t.Errorf("%s: exit %d, degree %d (json file: %d), digits %v", file, code, rep.Degree, ref.Degree, raw["digits"])
+		}
+	}
 	// The text output of a weighted rule carries its weight.
 	if _, errs, code := run(t, dir, "element", "--shape", "triangle", "--degree", "3", "--weight", "x", "--digits", "20", "-o", "wx.txt"); code != 0 {
 		t.Fatalf("weighted element: exit %d: %s", code, errs)
