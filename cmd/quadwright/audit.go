@@ -38,8 +38,9 @@ func newAuditCommand() *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "audit RULE",
 		Short: "Report what a quadrature rule really integrates and how far it can be trusted",
-		Long: `Audit a rule file (quadwright JSON, or a text table of "node weight" lines)
-against a measure: the degree of exactness with the residual at each degree,
+		Long: `Audit a rule file (quadwright JSON, a text table of "node weight" lines, or
+any output of build, element and export as it stands: text, CSV, and the
+source code of every export language) against a measure: the degree of exactness with the residual at each degree,
 negative weights and the stability factor with the digits it costs, nodes
 outside the interval or on its ends, the smallest gap, the conditioning of the
 Vandermonde and Hankel matrices, the degree left after rounding to float64,
@@ -64,6 +65,7 @@ group under which the rule is invariant to its own digits.`,
   quadwright audit g6.json
   quadwright audit g6.json --format json --fail-on 'negative,outside,degree<11'
   quadwright audit g6.json --format html -o g6.html
+  quadwright audit g6.json --format csv -o residuals.csv
   printf '0 1/6\n0.5 2/3\n1 1/6\n' > simpson.txt
   quadwright audit simpson.txt --interval 0,1 --quick
   quadwright audit simpson.txt --interval 0,1 --quick --fail-on 'degree<4'   # exits 2

@@ -62,7 +62,8 @@ points = 12, interval = "0,1", ...); flags given beside it override it.`,
   quadwright build --family laguerre --alpha 1.5 --points 12 --format csv -o laguerre12.csv
   quadwright build --family legendre --interval 0,2 --points 4
   quadwright build specs/spectral-lobatto.toml --digits 20
-  quadwright build --family legendre --points 50000 --format csv -o legendre50000.csv`,
+  quadwright build --family legendre --points 50000 --format csv -o legendre50000.csv
+  quadwright build --family legendre --points 8 --fail-on 'negative,degree<15' -o g8.txt`,
 		Args: cobra.MaximumNArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if len(args) == 1 {
