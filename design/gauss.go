@@ -92,6 +92,7 @@ func Gauss(ctx context.Context, m Measure, req Request) (*Rule, error) {
 		return nil, fmt.Errorf("the measure provides %d recurrence coefficients; an %d-point Gauss rule and its check need %d", max, n, need)
 	}
 	src := &cachedSource{src: m}
+	phase(ctx, "recurrence: %s", recurrenceMethod(m))
 	if err := src.reserve(need, confirmPrec(firstPrec(req.Digits, n))); err != nil {
 		return nil, err
 	}

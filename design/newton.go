@@ -116,6 +116,7 @@ type stage struct {
 // nodes, coefficients beyond float64 range), the zeros are isolated by
 // bisection on Sturm counts at prec bits instead.
 func gaussStage(ctx context.Context, rec *Recurrence, n int, prec uint, start []*big.Float) (*stage, error) {
+	stagePhase(ctx, prec, start != nil)
 	a := precision.NewRealSlice(n, prec)
 	b := precision.NewRealSlice(n, prec)
 	for k := 0; k < n; k++ {

@@ -88,7 +88,7 @@ func (d *digitsNote) String() string {
 	if !d.set {
 		return ""
 	}
-	return fmt.Sprintf(" (the input carries %d digits; %d survive in the %d-point rule)", d.given, d.kept, d.n)
+	return fmt.Sprintf(" (the input carries %s; %s in the %d-point rule)", Plural(d.given, "digit", "digits"), Plural(d.kept, "survives", "survive"), d.n)
 }
 
 // NewMomentSource returns the source of the moments in ml, given in basis,

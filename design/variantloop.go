@@ -97,6 +97,7 @@ func verifyRule(ctx context.Context, src RecurrenceSource, r *Rule, nominal, tes
 		testTo = max
 	}
 	testTo = max(testTo, nominal, 1)
+	phase(ctx, "verifying through degree %d", testTo)
 	var ex Exactness
 	var err error
 	if c, ok := src.(*cachedSource); ok && isVerifier(c.src) {

@@ -250,6 +250,8 @@ func (p *parser) lex() error {
 			}
 			p.toks = append(p.toks, token{tokName, s[i:j], i + 1})
 			i = j
+		case c == '*' && i+1 < len(s) && s[i+1] == '*':
+			return p.errorf(i+1, "\"**\" is not an operator here: write a power with \"^\", as in x^2")
 		case strings.IndexByte("+-*/^()", c) >= 0:
 			p.toks = append(p.toks, token{tokOp, s[i : i+1], i + 1})
 			i++

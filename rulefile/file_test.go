@@ -73,10 +73,18 @@ func FuzzParse(f *testing.F) {
 	f.Add([]byte("0 1\n1 2\n"))
 	f.Add([]byte(`{"format": "quadwright-rule/1", "points": 1, "nodes": ["0"], "weights": ["2"]}`))
 	f.Add([]byte("x,y,weight\n0,0,0.5\n"))
+	f.Add([]byte("// gauss rule exported by quadwright 0\n// domain:   interval [-1, 1]\n// points:   2\n// arrays:   g_nodes, g_weights (double)\nstatic const double g_nodes[2] = {-0.5, 0.5};\nstatic const double g_weights[2] = {1, 1};\n"))
+	f.Add([]byte("# r rule exported by quadwright\n# domain:   triangle with vertices (0,0)\n# points:   1\n# lists:    r_nodes, r_weights\nr_nodes = [(1/3, 0.3)]\nr_weights = [\"0.5\"]\n"))
+	f.Add([]byte("# quadwright symmetric rule on the reference prism\n# weight:   x (the rule integrates)\ni x y z weight\n1 0 0 0 1\n"))
+	f.Add([]byte("# measure:  m, weight 1 on [0, 1]\ni node weight\n1 0.5 1\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		r, err := Parse("fuzz", data)
 		if err == nil && (len(r.Nodes) != len(r.Weights) || len(r.Nodes) == 0) {
 			t.Fatalf("accepted an inconsistent rule: %+v", r)
+		}
+		if err == nil {
+			r.InferElement()
+			r.ElementShape("fuzz")
 		}
 	})
 }

@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strconv"
 	"strings"
 
 	"quadwright/precision"
@@ -54,9 +55,12 @@ func Parse(name string, data []byte) (*File, error) {
 	}
 	var f *File
 	var err error
-	if trimmed[0] == '{' {
+	switch {
+	case trimmed[0] == '{':
 		f, err = parseJSON(name, trimmed)
-	} else {
+	case isExport(trimmed):
+		f, err = parseExport(name, trimmed)
+	default:
 		f, err = parseTable(name, data)
 	}
 	if err != nil {
@@ -107,10 +111,17 @@ func parseTable(name string, data []byte) (*File, error) {
 	sc.Buffer(make([]byte, 1<<20), 1<<26)
 	lineNo := 0
 	dim := 0
+	var head tableHeader
+	// indexed: the table's first column is the row number (quadwright's
+	// text output, header "i node weight" or "i x y weight").
+	indexed := false
 	for sc.Scan() {
 		lineNo++
 		line := strings.TrimSpace(sc.Text())
 		if i := strings.IndexByte(line, '#'); i >= 0 {
+			if len(f.Nodes) == 0 {
+				head.readComment(line[i+1:])
+			}
 			line = strings.TrimSpace(line[:i])
 		}
 		if line == "" {
@@ -118,8 +129,18 @@ func parseTable(name string, data []byte) (*File, error) {
 		}
 		fields := strings.FieldsFunc(line, func(r rune) bool { return r == ',' || r == ' ' || r == '\t' || r == ';' })
 		if len(f.Nodes) == 0 && dim == 0 && isHeader(fields) {
+			indexed = len(fields) >= 3 && strings.EqualFold(fields[0], "i")
 			dim = len(fields) - 1
+			if indexed {
+				dim--
+			}
 			continue
+		}
+		if indexed {
+			if k, err := strconv.Atoi(fields[0]); err != nil || k != len(f.Nodes)+1 {
+				return nil, fmt.Errorf("rule file %s: line %d: the first column is the row number, expected %d, found %q", name, lineNo, len(f.Nodes)+1, clip(fields[0]))
+			}
+			fields = fields[1:]
 		}
 		if len(fields) < 2 {
 			return nil, fmt.Errorf("rule file %s: line %d: %q holds one number; expected a node and a weight", name, lineNo, clip(line))
@@ -146,6 +167,7 @@ func parseTable(name string, data []byte) (*File, error) {
 	}
 	f.Points = len(f.Nodes)
 	f.Degree = -1
+	head.apply(f)
 	return f, nil
 }
 

@@ -7,6 +7,7 @@ import (
 	"math/big"
 	"strings"
 
+	"quadwright/design"
 	"quadwright/design/element"
 	"quadwright/precision"
 )
@@ -17,8 +18,7 @@ type ElementOptions struct {
 	// rule's own digits (ExactDigits when a value is an exact fraction).
 	Unit *big.Rat
 	// MaxDegree, when > 0, is the highest total degree tested; otherwise
-	// the largest d with C(d+dim, dim) <= (dim+1) N (no N-point rule can
-	// fix more moments than it has free values), at most
+	// one past the highest degree N points allow (pointBound), at most
 	// element.MaxDegree (element.MaxWeightedDegree for a weight).
 	MaxDegree int
 	// Weight is the weight expression in the element's coordinates; "" or
@@ -51,6 +51,9 @@ type ElementReport struct {
 	Unit         string `json:"unit"`
 	Tolerance    string `json:"tolerance"`
 	DegreeTested int    `json:"degree_tested_to"`
+	// DegreeBound is the highest degree the point count allows for a
+	// positive weight (pointBound); testing stops one past it by default.
+	DegreeBound int `json:"degree_bound"`
 	// WorstShare is the largest residual over the monomials of the degrees
 	// that passed, as a share of the tolerance.
 	WorstShare Float `json:"largest_residual_share"`
@@ -59,7 +62,9 @@ type ElementReport struct {
 	Mass        Float          `json:"mass"`
 	MeasureMass Float          `json:"measure_mass"`
 	Symmetry    SymmetryReport `json:"symmetry"`
-	Notes       []string       `json:"notes,omitempty"`
+	// Accuracy says what the residuals imply for the values (accuracy.go).
+	Accuracy *Accuracy `json:"accuracy,omitempty"`
+	Notes    []string  `json:"notes,omitempty"`
 }
 
 // AuditElement audits the printed rule (nodes[i] with s.Dim() coordinates,
@@ -135,12 +140,12 @@ func AuditElement(ctx context.Context, s element.Shape, nodes [][]string, weight
 	rep.Mass = ratFloat(sum)
 
 	weighted := strings.TrimSpace(opt.Weight) != "" && strings.TrimSpace(opt.Weight) != "1"
+	rep.DegreeBound = pointBound(dim, n)
 	maxDeg := opt.MaxDegree
 	if maxDeg <= 0 {
-		maxDeg = 0
-		for binom(maxDeg+1+dim, dim) <= (dim+1)*n {
-			maxDeg++
-		}
+		// One past the bound: that degree must fail, so the degree found
+		// is the true one, not a lower bound.
+		maxDeg = rep.DegreeBound + 1
 		lim := element.MaxDegree(s)
 		if weighted {
 			lim = element.MaxWeightedDegree(s)
@@ -174,6 +179,9 @@ func AuditElement(ctx context.Context, s element.Shape, nodes [][]string, weight
 		return nil, err
 	}
 	rep.Degree, rep.DegreeTested, rep.WorstShare = ex.Degree, ex.Tested, Float(ex.WorstShare)
+	if rep.Accuracy, err = elementAccuracy(ctx, s, xs, ws, u, slack, ex, integral, rep.DegreeBound); err != nil {
+		return nil, err
+	}
 	if integral != nil {
 		rep.MeasureMass = ratFloat(integral(make([]int, dim)))
 	} else {
@@ -181,6 +189,21 @@ func AuditElement(ctx context.Context, s element.Shape, nodes [][]string, weight
 	}
 	rep.Symmetry = ruleSymmetry(s, xs, ws, tol)
 	return rep, nil
+}
+
+// pointBound is the highest degree an n-point rule on a dim-dimensional
+// element can integrate for a positive weight: 2k+1 with k the largest
+// such that C(k+dim, dim) <= n. A rule of degree 2k+2 would integrate p^2
+// for every p of degree k+1; if the C(k+1+dim, dim) > n such p are too
+// many, one of them vanishes at every node, and the rule gives 0 for the
+// positive integral of w p^2 (common practice: the lower bound on the
+// points of a cubature rule of given degree).
+func pointBound(dim, n int) int {
+	k := 0
+	for binom(k+1+dim, dim) <= n {
+		k++
+	}
+	return 2*k + 1
 }
 
 func binom(n, k int) int {
@@ -200,13 +223,15 @@ func ratText(r *big.Rat) string {
 // WriteText writes the report as a few labelled lines.
 func (r *ElementReport) WriteText(w io.Writer, title string) error {
 	var b strings.Builder
-	fmt.Fprintf(&b, "audit of %s: a %d-point rule on the reference %s, weight %s\n", title, r.Points, r.Shape, r.Weight)
+	fmt.Fprintf(&b, "audit of %s: a %d-point rule on the reference %s, weight %s\n", title, r.Points, r.Shape, design.WeightName(r.Weight))
 	deg := fmt.Sprintf("%d", r.Degree)
 	switch {
 	case r.Degree < 0:
 		deg = "-1 (the constant is not integrated)"
 	case r.Degree == r.DegreeTested:
 		deg += " (at least: every degree tested passed)"
+	case r.Degree == r.DegreeBound:
+		deg += fmt.Sprintf(" (the most %d points allow on the %s for a positive weight)", r.Points, r.Shape)
 	}
 	fmt.Fprintf(&b, "  degree:            %s; monomials tested through total degree %d, largest residual %.2g of the tolerance\n", deg, r.DegreeTested, float64(r.WorstShare))
 	fmt.Fprintf(&b, "  tolerance:         10u = %s (u %s)\n", r.Tolerance, unitSource(r))
@@ -215,6 +240,9 @@ func (r *ElementReport) WriteText(w io.Writer, title string) error {
 	fmt.Fprintf(&b, "  nodes outside:     %d (outside the closed %s); %d on its boundary\n", r.NodesOutside, r.Shape, r.NodesOnBoundary)
 	fmt.Fprintf(&b, "  mass:              %s (integral of the weight over the %s: %s)\n", num(r.Mass), r.Shape, num(r.MeasureMass))
 	fmt.Fprintf(&b, "  symmetry:          %s\n", r.Symmetry.describe(r.Shape))
+	if r.Accuracy != nil {
+		fmt.Fprintf(&b, "  accuracy:          %s\n", r.Accuracy.Text)
+	}
 	for _, n := range r.Notes {
 		fmt.Fprintf(&b, "  note: %s\n", n)
 	}

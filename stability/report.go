@@ -62,6 +62,11 @@ type Report struct {
 	// tolerance: |Q(p_j) - I(p_j)| / (10u sum |w_i|(|p_j(x_i)| + |x_i p_j'(x_i)|)),
 	// p_j the degree-j orthogonal polynomial; degree j passes when <= 1.
 	Residual []Float `json:"residual_share"`
+	// RelResidual[j] is the residual itself, the ratio above before the
+	// division by 10u (design.Exactness.Ratio), for tables and plots.
+	RelResidual []Float `json:"residual"`
+	// Accuracy says what the residuals imply for the values (accuracy.go).
+	Accuracy *Accuracy `json:"accuracy,omitempty"`
 	// MostNegative is the most negative weight as printed, at the 1-based
 	// MostNegativeIndex (0 and "" when no weight is negative); NegativeMass
 	// is the sum of the negative weights, NegativeShare its absolute value
@@ -153,6 +158,7 @@ func Audit(ctx context.Context, m design.Measure, nodes, weights []string, opt O
 		return nil, err
 	}
 	r.Degree, r.DegreeTested, r.Residual = ex.Degree, ex.Tested, shares(ex)
+	r.RelResidual = ratios(ex)
 	if r.Float64, err = float64Check(ctx, p, rec, u, maxDeg); err != nil {
 		return nil, err
 	}
@@ -160,6 +166,7 @@ func Audit(ctx context.Context, m design.Measure, nodes, weights []string, opt O
 		r.productTest(ctx, m, p, nodes, weights, opt, wanted)
 	}
 	r.capAtNodePolynomial(m, n)
+	r.Accuracy = impliedAccuracy(r)
 	r.Nodes, r.Weights = make([]float64, n), make([]float64, n)
 	for i := range p.x {
 		r.Nodes[i], _ = p.x[i].Float64()
@@ -203,6 +210,7 @@ func (r *Report) productTest(ctx context.Context, m design.Measure, p *parsedRul
 		return
 	}
 	r.Degree, r.DegreeTested, r.Residual = ex.Degree, to, shares(ex)
+	r.RelResidual = ratios(ex)
 	r.Notes = append(r.Notes, fmt.Sprintf("exactness tested through degree %d on products of the orthogonal polynomials that the measure's %d recurrence pairs fix", to, ml))
 	x64, w64 := make([]string, len(nodes)), make([]string, len(nodes))
 	for i := range nodes {
@@ -258,6 +266,16 @@ func shares(ex design.Exactness) []Float {
 			continue
 		}
 		f, _ := new(big.Float).SetPrec(64).Quo(q, ex.Tol).Float64()
+		out[j] = Float(f)
+	}
+	return out
+}
+
+// ratios returns ex.Ratio to float64 (+Inf where a ratio is infinite).
+func ratios(ex design.Exactness) []Float {
+	out := make([]Float, len(ex.Ratio))
+	for j, q := range ex.Ratio {
+		f, _ := q.Float64()
 		out[j] = Float(f)
 	}
 	return out

@@ -5,6 +5,8 @@ import (
 	"io"
 	"math"
 	"strings"
+
+	"quadwright/design"
 )
 
 // num formats a diagnostic number with 3 significant digits ("inf" when
@@ -20,16 +22,32 @@ func num(f Float) string {
 	return fmt.Sprintf("%.3g", v)
 }
 
+// sci formats a number of a table column that spans orders of magnitude
+// (residual shares, errors) in one style, 3 significant digits in
+// scientific notation, so that the column reads down: "6.46e-09" above
+// "4.63e-03", never "0.00463". An exact zero stays "0"; a value that is
+// not finite is "inf".
+func sci(f Float) string {
+	v := float64(f)
+	switch {
+	case math.IsInf(v, 0), math.IsNaN(v):
+		return "inf"
+	case v == 0:
+		return "0"
+	}
+	return fmt.Sprintf("%.2e", v)
+}
+
 // TextBlock returns the short report as comment lines ("# report: ...") for
 // the text rendering of a built rule.
 func (s Summary) TextBlock() string {
 	var b strings.Builder
-	where := fmt.Sprintf("%d nodes outside the interval, %d on its ends", s.NodesOutside, s.NodesOnBoundary)
+	where := fmt.Sprintf("%s outside the interval, %d on its ends", design.Plural(s.NodesOutside, "node", "nodes"), s.NodesOnBoundary)
 	if s.Support != "" {
 		where = "nodes outside not counted (support " + s.Support + ")"
 	}
-	fmt.Fprintf(&b, "# report:   %d negative weights, stability factor %s (lost digits %s), %s, smallest gap %s\n",
-		s.NegativeWeights, num(s.StabilityFactor), num(s.LostDigits), where, num(s.MinGap))
+	fmt.Fprintf(&b, "# report:   %s, stability factor %s (lost digits %s), %s, smallest gap %s\n",
+		design.Plural(s.NegativeWeights, "negative weight", "negative weights"), num(s.StabilityFactor), num(s.LostDigits), where, num(s.MinGap))
 	return b.String()
 }
 
@@ -38,7 +56,7 @@ func (s Summary) TextBlock() string {
 func (r *Report) WriteText(w io.Writer, title string) error {
 	var b strings.Builder
 	fmt.Fprintf(&b, "quadwright audit of %s\n\n", title)
-	fmt.Fprintf(&b, "measure:       %s, weight %s on %s\n", r.Measure, r.Weight, r.Domain)
+	fmt.Fprintf(&b, "measure:       %s%s on %s\n", r.Measure, design.WeightPhrase(r.Weight), r.Domain)
 	fmt.Fprintf(&b, "points:        %d\n", r.Points)
 	dig := fmt.Sprintf("%d (the most significant digits of any value)", r.Digits)
 	switch {
@@ -74,12 +92,15 @@ func (r *Report) WriteText(w io.Writer, title string) error {
 	for j := from; j < end; j += 6 {
 		b.WriteString("              ")
 		for k := j; k < min(j+6, end); k++ {
-			fmt.Fprintf(&b, " %3d: %-8s", k, num(r.Residual[k]))
+			fmt.Fprintf(&b, " %3d: %-8s", k, sci(r.Residual[k]))
 		}
 		b.WriteString("\n")
 	}
 	if end < len(r.Residual) {
 		fmt.Fprintf(&b, "               (degrees %d to %d: see --format json)\n", end, len(r.Residual)-1)
+	}
+	if r.Accuracy != nil {
+		fmt.Fprintf(&b, "accuracy:      %s\n", r.Accuracy.Text)
 	}
 	if r.NegativeWeights == 0 {
 		fmt.Fprintf(&b, "weights:       none negative; sum %s (measure's mass %s)\n", num(r.Mass), num(r.MeasureMass))
@@ -114,9 +135,9 @@ func (r *Report) WriteText(w io.Writer, title string) error {
 		}
 		b.WriteString("\n")
 		for _, cs := range g.Cases {
-			fmt.Fprintf(&b, "  %-14s %5g %6g  %-12s %-12s", cs.Name, cs.C, cs.W, num(cs.RuleError), num(cs.GaussError))
+			fmt.Fprintf(&b, "  %-14s %5g %6g  %-12s %-12s", cs.Name, cs.C, cs.W, sci(cs.RuleError), sci(cs.GaussError))
 			if g.ReferencePoints > 0 {
-				fmt.Fprintf(&b, " %-12s", num(cs.ReferenceError))
+				fmt.Fprintf(&b, " %-12s", sci(cs.ReferenceError))
 			}
 			b.WriteString("\n")
 		}

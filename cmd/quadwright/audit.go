@@ -29,6 +29,8 @@ type auditOptions struct {
 	failOn    string
 	quick     bool
 	shape     string
+	// inferredShape: the table named no element and InferElement chose it.
+	inferredShape bool
 }
 
 func newAuditCommand() *cobra.Command {
@@ -36,8 +38,9 @@ func newAuditCommand() *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "audit RULE",
 		Short: "Report what a quadrature rule really integrates and how far it can be trusted",
-		Long: `Audit a rule file (quadwright JSON, or a text table of "node weight" lines)
-against a measure: the degree of exactness with the residual at each degree,
+		Long: `Audit a rule file (quadwright JSON, a text table of "node weight" lines, or
+any output of build, element and export as it stands: text, CSV, and the
+source code of every export language) against a measure: the degree of exactness with the residual at each degree,
 negative weights and the stability factor with the digits it costs, nodes
 outside the interval or on its ends, the smallest gap, the conditioning of the
 Vandermonde and Hankel matrices, the degree left after rounding to float64,
@@ -62,6 +65,7 @@ group under which the rule is invariant to its own digits.`,
   quadwright audit g6.json
   quadwright audit g6.json --format json --fail-on 'negative,outside,degree<11'
   quadwright audit g6.json --format html -o g6.html
+  quadwright audit g6.json --format csv -o residuals.csv
   printf '0 1/6\n0.5 2/3\n1 1/6\n' > simpson.txt
   quadwright audit simpson.txt --interval 0,1 --quick
   quadwright audit simpson.txt --interval 0,1 --quick --fail-on 'degree<4'   # exits 2
@@ -80,7 +84,7 @@ group under which the rule is invariant to its own digits.`,
 	f.Lookup("interval").Usage += "; alone, weight 1 on [A,B] for a rule file that names no measure"
 	f.StringVar(&o.tolerance, "tolerance", "", "relative accuracy u of every node and weight, decimal or p/q, 0 < u < 1 (default: 10^(1-D), D the rule's own digits)")
 	f.StringVar(&o.maxDegree, "max-degree", "", "highest degree to test (default 2N+1, lowered to what the measure provides)")
-	f.StringVar(&o.format, "format", "text", "output format: text, json or html (html: a self-contained page with inline plots)")
+	f.StringVar(&o.format, "format", "text", "output format: text, json, csv or html (csv: the residual by degree, for plots; html: a self-contained page with inline plots)")
 	f.StringVarP(&o.output, "output", "o", "", "write the report to this file (atomically) instead of standard output")
 	f.StringVar(&o.failOn, "fail-on", "", "comma-separated conditions that make the exit status 2: negative, outside, degree<K, lost>L (L in decimal digits)")
 	f.BoolVar(&o.quick, "quick", false, "leave out the test integrands and the matrix conditioning")
@@ -93,8 +97,8 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 		ctx = context.Background()
 	}
 	format := strings.ToLower(strings.TrimSpace(o.format))
-	if format != "text" && format != "json" && format != "html" {
-		return fmt.Errorf("--format %q: choose text, json or html", o.format)
+	if format != "text" && format != "json" && format != "html" && format != "csv" {
+		return fmt.Errorf("--format %q: choose text, json, csv or html", o.format)
 	}
 	checks, err := parseFailOn(o.failOn)
 	if err != nil {
@@ -132,6 +136,10 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 		}
 		isElement = true
 	}
+	if !isElement && file.Dim() >= 2 {
+		shape, isElement = file.InferElement()
+		o.inferredShape = isElement
+	}
 	if isElement {
 		return runElementAudit(ctx, o, file, shape, path, format, checks, opt.Unit, opt.MaxDegree, cmd)
 	}
@@ -157,6 +165,8 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 			w.WriteString("\n")
 		case "html":
 			return rep.WriteHTML(w, path, cautionText)
+		case "csv":
+			return writeResidualCSV(w, rep)
 		default:
 			if err := rep.WriteText(w, path); err != nil {
 				return err
@@ -191,6 +201,9 @@ func (o *auditOptions) resolveAuditMeasure(ctx context.Context, f *rulefile.File
 	if b.family != "" || b.weight != "" || b.momentsFile != "" || b.measure != "" {
 		m, _, err := b.resolve(ctx)
 		return m, err
+	}
+	if err := fileMeasureHint(f, path); err != nil {
+		return nil, err
 	}
 	domain := ""
 	if len(f.Domain.Interval) == 2 {
@@ -278,11 +291,11 @@ func checkThresholds(checks []failCheck, r auditFacts) error {
 		switch c.kind {
 		case "negative":
 			if r.NegativeWeights > 0 {
-				failed = append(failed, fmt.Sprintf("%d negative weights", r.NegativeWeights))
+				failed = append(failed, design.Plural(r.NegativeWeights, "negative weight", "negative weights"))
 			}
 		case "outside":
 			if r.NodesOutside > 0 {
-				failed = append(failed, fmt.Sprintf("%d nodes outside the %s", r.NodesOutside, r.domain))
+				failed = append(failed, design.Plural(r.NodesOutside, "node", "nodes")+" outside the "+r.domain)
 			}
 		case "degree":
 			if r.Degree < c.degree {

@@ -22,6 +22,9 @@ import (
 // unit and maxDegree are --tolerance and --max-degree as runAudit read
 // them (nil and 0 when not given).
 func runElementAudit(ctx context.Context, o *auditOptions, file *rulefile.File, shape element.Shape, path, format string, checks []failCheck, unit *big.Rat, maxDegree int, cmd *cobra.Command) error {
+	if format == "csv" {
+		return fmt.Errorf("--format csv: the residual table by degree is written for rules on an interval; for a rule on the %s choose text, json or html", shape)
+	}
 	m := o.measure
 	for _, f := range []struct{ name, val string }{
 		{"--family", m.family}, {"--alpha", m.alpha}, {"--beta", m.beta}, {"--interval", m.interval},
@@ -56,6 +59,9 @@ func runElementAudit(ctx context.Context, o *auditOptions, file *rulefile.File, 
 	if err != nil {
 		return fmt.Errorf("rule file %s: %v", path, err)
 	}
+	if o.inferredShape {
+		rep.Notes = append(rep.Notes, fmt.Sprintf("the table names no element: it is taken as the %s, which holds every node and whose %s its weights sum to (give --shape to choose another)", shape, sizeWord(shape)))
+	}
 	err = writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
 		switch format {
 		case "json":
@@ -85,4 +91,11 @@ func nodesOf(f *rulefile.File) [][]string {
 
 func coordNames(s element.Shape) string {
 	return strings.Join([]string{"x", "y", "z"}[:s.Dim()], ", ")
+}
+
+func sizeWord(s element.Shape) string {
+	if s.Dim() == 2 {
+		return "area"
+	}
+	return "volume"
 }

@@ -19,6 +19,8 @@ type buildOptions struct {
 	fixed, nodesFile             string
 	output                       string
 	engine, verify               string // the fast path (build_fast.go)
+	failOn                       string // build_failon.go
+	fastFacts                    *auditFacts
 }
 
 func newBuildCommand() *cobra.Command {
@@ -60,7 +62,8 @@ points = 12, interval = "0,1", ...); flags given beside it override it.`,
   quadwright build --family laguerre --alpha 1.5 --points 12 --format csv -o laguerre12.csv
   quadwright build --family legendre --interval 0,2 --points 4
   quadwright build specs/spectral-lobatto.toml --digits 20
-  quadwright build --family legendre --points 50000 --format csv -o legendre50000.csv`,
+  quadwright build --family legendre --points 50000 --format csv -o legendre50000.csv
+  quadwright build --family legendre --points 8 --fail-on 'negative,degree<15' -o g8.txt`,
 		Args: cobra.MaximumNArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if len(args) == 1 {
@@ -82,6 +85,7 @@ points = 12, interval = "0,1", ...); flags given beside it override it.`,
 	f.StringVarP(&o.output, "output", "o", "", "write the rule to this file (atomically) instead of standard output")
 	f.StringVar(&o.engine, "engine", "auto", fmt.Sprintf("auto: the fast float64 path (design/fast) in float64 mode from %d points for the families and kinds it serves (and up to %d points, beyond the engine's %d), else the extended-precision engine; fast or extended to choose", design.FastThreshold, design.FastMaxPoints, design.MaxPoints))
 	f.StringVar(&o.verify, "verify", "budget", "fast path exactness test: budget (through degree 2N-1 while N(K+1) <= 2e8 recurrence steps, else to the degree K that allows; degree reports what was tested) or full (through 2N-1 at any N: O(N^2))")
+	addBuildFailOn(cmd, o)
 	return cmd
 }
 
@@ -90,6 +94,10 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 		ctx = context.Background()
 	}
 	format, err := parseFormat(o.format)
+	if err != nil {
+		return err
+	}
+	checks, err := parseFailOn(o.failOn)
 	if err != nil {
 		return err
 	}
@@ -120,19 +128,29 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 		return err
 	} else if useFast {
 		defer done()
-		return o.runFastBuild(ctx, *fam, kind, n, format, cmd.OutOrStdout())
+		design.ReportPhase(ctx, "fast float64 path")
+		clearBeforeStdout(o.output, done)
+		if err := o.runFastBuild(ctx, *fam, kind, n, format, cmd.OutOrStdout()); err != nil {
+			return err
+		}
+		return checkBuilt(checks, func() (auditFacts, error) { return *o.fastFacts, nil })
 	}
 	rule, err := o.makeRule(ctx, m, req)
 	if err == nil {
 		err = design.DescribeInput(ctx, m, rule)
 	}
-	done()
 	if err != nil {
 		return err
 	}
-	return writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
+	design.ReportPhase(ctx, "writing")
+	clearBeforeStdout(o.output, done)
+	err = writeOutput(o.output, cmd.OutOrStdout(), func(w *strings.Builder) error {
 		return writeRule(w, rule, fam, format)
 	})
+	if err != nil {
+		return err
+	}
+	return checkBuilt(checks, func() (auditFacts, error) { return ruleFacts(rule) })
 }
 
 func parseFormat(s string) (string, error) {

@@ -72,6 +72,7 @@ func (o *buildOptions) runFastBuild(ctx context.Context, fam moments.Family, kin
 	if err != nil {
 		return err
 	}
+	o.fastFacts = ptr(fastFacts(rule))
 	return streamOutput(o.output, stdout, func(w io.Writer) error {
 		return writeFastRule(w, rule, &fam, format)
 	})

@@ -8,6 +8,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"quadwright/design"
 	"quadwright/design/element"
 	"quadwright/rulefile"
 )
@@ -160,7 +161,7 @@ func writeElementRule(w *strings.Builder, r *element.Rule, format string) error 
 		fmt.Fprintf(w, "# quadwright %s rule on the reference %s\n", r.Kind, r.Shape)
 		fmt.Fprintf(w, "# method:   %s\n", r.Method)
 		if r.Weight != "" {
-			fmt.Fprintf(w, "# weight:   %s (the rule integrates w p over the element)\n", r.Weight)
+			fmt.Fprintf(w, "# weight:   %s (the rule integrates w p over the element)\n", design.WeightName(r.Weight))
 		}
 		fmt.Fprintf(w, "# points:   %d", r.Points())
 		if r.Published > 0 {

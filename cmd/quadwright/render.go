@@ -57,7 +57,7 @@ func writeText(w *strings.Builder, r *design.Rule) error {
 		digits = fmt.Sprintf("%d significant, each within one unit of its last place", r.Digits)
 	}
 	fmt.Fprintf(w, "# quadwright %s rule\n", r.Kind)
-	fmt.Fprintf(w, "# measure:  %s, weight %s on %s\n", r.Measure, r.Weight, domainLabel(r))
+	fmt.Fprintf(w, "# measure:  %s%s on %s\n", r.Measure, design.WeightPhrase(r.Weight), domainLabel(r))
 	fmt.Fprintf(w, "# points:   %d\n", r.Points())
 	fmt.Fprintf(w, "# degree:   %d (verified on the printed values; largest residual %s times the tolerance)\n", r.Degree, maxRatio(r))
 	fmt.Fprintf(w, "# digits:   %s\n", digits)

@@ -2,6 +2,7 @@ package element
 
 import (
 	"context"
+	"math"
 	"math/big"
 
 	"quadwright/precision"
@@ -80,4 +81,67 @@ func monomialChunk(ctx context.Context, xs [][]*big.Rat, ws []*big.Rat, mons [][
 		}
 	}
 	return nil
+}
+
+// DegreeResiduals returns, for each total degree d = 0..maxDeg, the largest
+// relative residual over the monomials p of degree d,
+//
+//	rel_d = max_p |sum_i w_i p(x_i) - I(p)| / ((1 + d) sum_i |w_i| |p(x_i)|),
+//
+// and the largest share of the tolerance VerifyAgainst holds it to,
+// share_d = max_p |...| / (10 u (1 + d) sum_i |w_i| |p(x_i)| + slack)
+// (+Inf for a nonzero residual against a zero tolerance; rel_d is then
+// +Inf as well). integral nil means weight 1 (MonomialIntegral); slack may
+// be nil. The sums are formed at prec bits, as VerifyAgainst forms them.
+// rel is what the residuals say about the accuracy of the values, whatever
+// the digits they are printed to.
+func DegreeResiduals(ctx context.Context, s Shape, xs [][]*big.Rat, ws []*big.Rat, u, slack *big.Rat, maxDeg int, prec uint, integral Integral) (rel, share []float64, err error) {
+	dim := s.Dim()
+	if integral == nil {
+		integral = func(e []int) *big.Rat { return MonomialIntegral(s, e) }
+	}
+	var mons [][]int
+	var degOf []int
+	for d := 0; d <= maxDeg; d++ {
+		for _, m := range monomials(dim, d) {
+			mons = append(mons, m)
+			degOf = append(degOf, d)
+		}
+	}
+	S := precision.NewRealSlice(len(mons), prec)
+	B := precision.NewRealSlice(len(mons), prec)
+	if err := monomialChunk(ctx, xs, ws, mons, maxDeg, S, B, prec); err != nil {
+		return nil, nil, err
+	}
+	rel, share = make([]float64, maxDeg+1), make([]float64, maxDeg+1)
+	t := precision.NewReal(prec).SetRat(new(big.Rat).Mul(u, big.NewRat(10, 1)))
+	sl := precision.NewReal(prec)
+	if slack != nil {
+		sl.SetRat(slack)
+	}
+	exact, den, lim, q := precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec)
+	for j, m := range mons {
+		d := degOf[j]
+		exact.SetRat(integral(m))
+		r := S[j].Sub(S[j], exact)
+		r.Abs(r)
+		den.Mul(B[j], precision.NewReal(prec).SetInt64(int64(1+d)))
+		lim.Mul(den, t)
+		lim.Add(lim, sl)
+		var a, b float64
+		switch {
+		case r.IsZero():
+		case den.IsZero():
+			a, b = math.Inf(1), math.Inf(1)
+		default:
+			a = q.Quo(r, den).Float64()
+			if lim.IsZero() {
+				b = math.Inf(1)
+			} else {
+				b = q.Quo(r, lim).Float64()
+			}
+		}
+		rel[d], share[d] = max(rel[d], a), max(share[d], b)
+	}
+	return rel, share, nil
 }
