@@ -1,0 +1,248 @@
+package fast
+
+import (
+	"context"
+	"fmt"
+	"math"
+)
+
+// ChebyshevCheck is what CheckChebyshev found.
+type ChebyshevCheck struct {
+	// Degree is the highest d such that every degree k <= d passed
+	// (-1 when k = 0 failed).
+	Degree int
+	// Direct is the highest degree tested by direct double-double sums,
+	// by the audit's criterion with u = DirectTol/10; DirectWorst the largest residual there as a
+	// share of that tolerance.
+	Direct      int
+	DirectTol   float64
+	DirectWorst float64
+	// TransformWorst is the largest |F_k - mu_k| over the degrees that
+	// passed, as a share of the transform's bound tau(k) sum |w_i|;
+	// BoundLow and BoundHigh are tau(0) and tau(maxDeg).
+	TransformWorst      float64
+	BoundLow, BoundHigh float64
+	// Agreement is the largest |F_k - S_k| / (tau(k) sum |w_i|) over the
+	// degrees summed directly (S_k): at most 1, or the check fails.
+	Agreement float64
+	// Grid is the length of the transform's periodic grid.
+	Grid int
+}
+
+// CheckChebyshev tests a rule on a finite interval for exactness in the
+// Chebyshev basis T_k(t), t = (x - lo)/half - 1 the variable of [-1, 1],
+// for every degree k = 0..maxDeg, against mu_k = half m_k, m_k the
+// Chebyshev moments of (1-t)^a (1+t)^b of mass m_0 = mass
+// (JacobiChebyshevMoments). Degrees 0..direct are summed directly in
+// double-double and pass when |sum_i w_i T_k(t_i) - mu_k| <= tol sum |w_i|
+// (tol = 10 u, the audit's criterion; |T_k| <= 1 on [-1, 1] makes this
+// stricter than the audit's own scale). All degrees are summed by one
+// nonuniform FFT (cosSums, T_k(cos theta) = cos(k theta)) with error at
+// most tau(k) sum |w_i|, and pass when |F_k - mu_k| <= tau(k) sum |w_i|,
+// so that the rule's own residual is below 2 tau(k) sum |w_i|. The
+// transform's bound is itself tested: where both sums exist, and at the
+// band's edge k = maxDeg by a direct double-double sum of cos(k theta_i),
+// |F_k - S_k| must lie within tau(k) sum |w_i|, or CheckChebyshev fails
+// with an error. x must lie in [lo, lo + 2 half].
+func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2]float64, maxDeg, direct int, tol float64) (ChebyshevCheck, error) {
+	if len(x) != len(w) || maxDeg < 0 {
+		panic("fast: CheckChebyshev arguments of mismatched lengths")
+	}
+	direct = min(direct, maxDeg)
+	n := len(x)
+	L, H := dd{lo[0], lo[1]}, dd{half[0], half[1]}
+	unit := L.hi == -1 && L.lo == 0 && H.hi == 1 && H.lo == 0
+	t := make([]dd, n)
+	th := make([]dd, n)
+	parallelFor(n, func(i0, i1 int) {
+		for i := i0; i < i1; i++ {
+			ti := ddF(x[i])
+			if !unit {
+				ti = ddSub(ddDiv(ddSub(ti, L), H), ddF(1))
+			}
+			ti.hi = math.Max(-1, math.Min(1, ti.hi))
+			t[i], th[i] = ti, ddAcos(ti)
+		}
+	})
+	if err := ctx.Err(); err != nil {
+		return ChebyshevCheck{}, err
+	}
+	var sumAbs float64
+	for _, v := range w {
+		sumAbs += math.Abs(v)
+	}
+	mu := JacobiChebyshevMoments(dd{a[0], a[1]}, dd{b[0], b[1]}, dd{mass[0], mass[1]}, maxDeg)
+	for k := range mu {
+		mu[k] = ddMul(mu[k], H)
+	}
+	// The audit's scale at degree k is at least sum_i |w_i x_i| k
+	// |sin(k theta_i)| / (half sin theta_i) >= k sum_i a_i (1 - cos(2k
+	// theta_i)) / 2 (|s| >= s^2), a_i = |w_i x_i| / (half sin theta_i): a
+	// second transform, at the angles 2 theta_i, gives this lower bound
+	// for every k.
+	phi := make([]dd, n)
+	av := make([]float64, n)
+	var sumA float64
+	for i := range th {
+		phi[i] = dd{2 * th[i].hi, 2 * th[i].lo}
+		if sn := math.Sin(th[i].hi); sn > 0 {
+			av[i] = math.Abs(w[i]*x[i]) / (H.hi * sn) * (1 - 1e-12)
+		}
+		sumA += av[i]
+	}
+	// The two transforms on goroutines of their own, the direct sums and
+	// the edge degree on the others.
+	done := make(chan *cosTransform, 1)
+	doneA := make(chan *cosTransform, 1)
+	go func() { done <- cosSums(th, w, maxDeg+1) }()
+	go func() { doneA <- cosSums(phi, av, maxDeg+1) }()
+	S, sc := directChebyshev(x, t, w, H.hi, direct)
+	edge := directCos(th, w, maxDeg)
+	tr, trA := <-done, <-doneA
+	if err := ctx.Err(); err != nil {
+		return ChebyshevCheck{}, err
+	}
+	lower := func(k int) float64 {
+		fk := float64(k)
+		return math.Max(0, fk*(sumA-trA.F[k]-trA.errBound(k)*sumA)/2)
+	}
+	c := ChebyshevCheck{Degree: -1, Direct: direct, DirectTol: tol, Grid: tr.grid,
+		BoundLow: tr.errBound(0), BoundHigh: tr.errBound(maxDeg)}
+	agree := func(k int, s dd) error {
+		share := math.Abs(ddSub(s, ddF(tr.F[k])).float()) / (tr.errBound(k) * sumAbs)
+		c.Agreement = math.Max(c.Agreement, share)
+		if !(share <= 1) {
+			return fmt.Errorf("the nonuniform FFT of the exactness check missed its error bound at degree %d (%.3g times the bound)", k, share)
+		}
+		return nil
+	}
+	for k := 0; k <= direct; k++ {
+		if err := agree(k, S[k]); err != nil {
+			return c, err
+		}
+		if l := lower(k); l > sc[k]*(1+1e-9) {
+			return c, fmt.Errorf("the lower bound of the audit's scale at degree %d, %.6g, exceeds the scale %.6g", k, l, sc[k])
+		}
+	}
+	if err := agree(maxDeg, edge); err != nil {
+		return c, err
+	}
+	for k := 0; k <= maxDeg; k++ {
+		if k <= direct {
+			share := 0.0
+			if r := ddSub(S[k], mu[k]).float(); r != 0 {
+				share = math.Abs(r) / (tol * sc[k])
+			}
+			if !(share <= 1) {
+				break
+			}
+			c.DirectWorst = math.Max(c.DirectWorst, share)
+		}
+		share := math.Abs(ddSub(ddF(tr.F[k]), mu[k]).float()) / (tr.errBound(k)*sumAbs + tol*lower(k))
+		if !(share <= 1) {
+			break
+		}
+		c.TransformWorst = math.Max(c.TransformWorst, share)
+		c.Degree = k
+	}
+	return c, nil
+}
+
+// directChebyshev returns S_k = sum_i w_i T_k(t_i) for k = 0..K in
+// double-double, by the recurrence T_{k+1} = 2 t T_k - T_{k-1} (stable on
+// [-1, 1]: its rounding grows like k, not faster), and the audit's scale
+// sc_k = sum_i |w_i| (|T_k(t_i)| + |x_i T_k'(t_i)| / half) in float64
+// (T_k' = k U_{k-1}), chunk by chunk in parallel and the chunks added in
+// order, so that the result does not depend on the number of cores.
+func directChebyshev(x []float64, t []dd, w []float64, halfF float64, K int) ([]dd, []float64) {
+	n := len(t)
+	chunks := (n + degreeChunk - 1) / degreeChunk
+	part := make([][]dd, chunks)
+	partSc := make([][]float64, chunks)
+	parallelEach(chunks, nil, func(c int) {
+		s := make([]dd, K+1)
+		sc := make([]float64, K+1)
+		for i := c * degreeChunk; i < min((c+1)*degreeChunk, n); i++ {
+			t0, t1 := ddF(1), t[i]
+			tt := dd{2 * t[i].hi, 2 * t[i].lo}
+			aw, ax := math.Abs(w[i]), math.Abs(x[i])/halfF
+			tf := t[i].hi
+			u0, u1 := 0.0, 1.0 // U_{k-2}, U_{k-1}
+			s[0] = ddAdd(s[0], ddF(w[i]))
+			sc[0] += aw
+			for k := 1; k <= K; k++ {
+				s[k] = ddAdd(s[k], ddMulF(t1, w[i]))
+				sc[k] += aw * (math.Abs(t1.hi) + ax*float64(k)*math.Abs(u1))
+				t0, t1 = t1, ddAddFast(ddMul(tt, t1), ddNeg(t0))
+				u0, u1 = u1, 2*tf*u1-u0
+			}
+		}
+		part[c], partSc[c] = s, sc
+	})
+	S := make([]dd, K+1)
+	Sc := make([]float64, K+1)
+	for c, s := range part {
+		for k := range S {
+			S[k] = ddAdd(S[k], s[k])
+			Sc[k] += partSc[c][k]
+		}
+	}
+	return S, Sc
+}
+
+// directCos returns sum_i w_i cos(k theta_i) in double-double.
+func directCos(th []dd, w []float64, k int) dd {
+	n := len(th)
+	chunks := (n + degreeChunk - 1) / degreeChunk
+	part := make([]dd, chunks)
+	parallelEach(chunks, nil, func(c int) {
+		var s dd
+		for i := c * degreeChunk; i < min((c+1)*degreeChunk, n); i++ {
+			cs, _ := ddCosSin(ddMulF(th[i], float64(k)))
+			s = ddAdd(s, ddMulF(cs, w[i]))
+		}
+		part[c] = s
+	})
+	var S dd
+	for _, s := range part {
+		S = ddAdd(S, s)
+	}
+	return S
+}
+
+// JacobiChebyshevMoments returns m_k = integral over [-1, 1] of (1-t)^a
+// (1+t)^b T_k(t) dt for k = 0..K, m_0 = mass, in double-double, by the
+// recurrence
+//
+//	(k + 2 + a + b) m_{k+1} = 2 (b - a) m_k + (k - 2 - a - b) m_{k-1},
+//
+// from integrating (1-t^2) w'(t) T_k(t) by parts (R. Piessens and M.
+// Branders, "The evaluation and application of some modified moments",
+// BIT 13, 1973). Its two solutions behave like k^(-2a-2) and (-1)^k
+// k^(-2b-2), both parts of m_k, so the forward direction is stable.
+func JacobiChebyshevMoments(a, b, mass dd, K int) []dd {
+	m := make([]dd, K+1)
+	m[0] = mass
+	s := ddAdd(a, b)
+	ba2 := ddMulF(ddSub(b, a), 2)
+	if K >= 1 {
+		m[1] = ddDiv(ddMul(mass, ddSub(b, a)), ddAdd(s, ddF(2)))
+	}
+	for k := 1; k < K; k++ {
+		fk := float64(k)
+		num := ddAdd(ddMul(ba2, m[k]), ddMul(ddSub(ddF(fk-2), s), m[k-1]))
+		m[k+1] = ddDiv(num, ddAdd(ddF(fk+2), s))
+	}
+	return m
+}
+
+// JacobiChebyshevMomentsF is JacobiChebyshevMoments of float64 arguments,
+// rounded to float64 (for tests).
+func JacobiChebyshevMomentsF(a, b, mass float64, K int) []float64 {
+	m := JacobiChebyshevMoments(ddF(a), ddF(b), ddF(mass), K)
+	out := make([]float64, len(m))
+	for k, v := range m {
+		out[k] = v.float()
+	}
+	return out
+}
