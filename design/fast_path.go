@@ -102,7 +102,7 @@ func BuildFast(ctx context.Context, fam moments.Family, kind string, n int, opt 
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-	idx := fastSamples(n, p.free)
+	idx := fastSamples(n, p.free, p.sampleCount(n))
 	starts := make([]float64, len(idx))
 	for j, i := range idx {
 		starts[j] = x[i]
@@ -151,7 +151,7 @@ func (r *FastRule) checkDegree(ctx context.Context, p *fastPlan, full bool) erro
 // fastDirectBudget bounds the direct double-double sums of the Chebyshev
 // check (nodes times degrees; about 10 ns each on one core).
 const (
-	fastDirectBudget = 2e7
+	fastDirectBudget = 1e7
 	fastDirectMin    = 8
 )
 

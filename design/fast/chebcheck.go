@@ -84,7 +84,11 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 	av := make([]float64, n)
 	var sumA float64
 	for i := range th {
+		// cos(2k theta) = cos(2k (pi - theta)): the angle kept in [0, pi].
 		phi[i] = dd{2 * th[i].hi, 2 * th[i].lo}
+		if th[i].hi > math.Pi/2 {
+			phi[i] = ddMulF(ddSub(ddPi, th[i]), 2)
+		}
 		if sn := math.Sin(th[i].hi); sn > 0 {
 			av[i] = math.Abs(w[i]*x[i]) / (H.hi * sn) * (1 - 1e-12)
 		}
@@ -94,8 +98,8 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 	// the edge degree on the others.
 	done := make(chan *cosTransform, 1)
 	doneA := make(chan *cosTransform, 1)
-	go func() { done <- cosSums(th, w, maxDeg+1) }()
-	go func() { doneA <- cosSums(phi, av, maxDeg+1) }()
+	go func() { done <- cosSums(th, w, maxDeg+1, nufftFine) }()
+	go func() { doneA <- cosSums(phi, av, maxDeg+1, nufftCoarse) }()
 	S, sc := directChebyshev(x, t, w, H.hi, direct)
 	edge := directCos(th, w, maxDeg)
 	tr, trA := <-done, <-doneA

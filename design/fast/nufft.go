@@ -6,25 +6,33 @@ import (
 	"gonum.org/v1/gonum/dsp/fourier"
 )
 
-// nufftSpread is the number of grid points on each side of a node over
-// which its Gaussian is spread, and nufftOversample the grid's
-// oversampling ratio R: with R = 2 the truncation and aliasing errors are
-// about exp(-2 pi Msp / 3) at the edge of the band (3e-15 for Msp = 16),
-// while the deconvolution multiplies the rounding of the transform by up
-// to exp(pi Msp / 12) (66) there; Msp = 16 balances the two (Greengard
-// and Lee 2004, section 2).
-const (
-	nufftSpread     = 16
-	nufftOversample = 2
+// nufftParams are the number Msp of grid points on each side of a node
+// over which its Gaussian is spread and the grid's oversampling ratio R.
+// With R = 2 the truncation and aliasing errors are about exp(-2 pi Msp /
+// 3) at the edge of the band (3e-15 for Msp = 16), while the
+// deconvolution multiplies the rounding of the transform by up to exp(pi
+// Msp / 12) (66) there; Msp = 16 balances the two (Greengard and Lee 2004,
+// section 2). The coarse setting (R = 5/4, Msp = 8, errors near 1e-3)
+// serves a lower bound that needs only a few digits.
+type nufftParams struct {
+	spread int
+	ratio  float64
+}
+
+var (
+	nufftFine   = nufftParams{16, 2}
+	nufftCoarse = nufftParams{8, 1.25}
 )
 
 // cosTransform holds the result of cosSums: F[k] = sum_i c_i cos(k
 // theta_i) for k < K, and what bounds its error.
 type cosTransform struct {
-	F     []float64
-	tau   float64 // the Gaussian's parameter
-	grid  int     // Mr, points of the periodic grid
-	trunc float64 // truncation and aliasing at the band's edge, relative to sum |c|
+	F      []float64
+	amp    []float64 // the deconvolution factors exp(k^2 tau)
+	tau    float64   // the Gaussian's parameter
+	grid   int       // Mr, points of the periodic grid
+	trunc  float64   // truncation and aliasing at the band's edge, relative to sum |c|
+	rounds float64   // roundings per value: spreading and the FFT
 }
 
 // errBound returns the bound on |F[k] - exact| relative to sum_i |c_i|:
@@ -34,9 +42,7 @@ type cosTransform struct {
 // roundings of the grid's l1 norm, which the normalisation makes sum |c|)
 // times the deconvolution factor exp(k^2 tau).
 func (t *cosTransform) errBound(k int) float64 {
-	const u = 0x1p-53
-	amp := math.Exp(float64(k) * float64(k) * t.tau)
-	return t.trunc + u*(4*nufftSpread+8*math.Log2(float64(t.grid)))*amp
+	return t.trunc + 0x1p-53*t.rounds*t.amp[k]
 }
 
 // cosSums returns F[k] = sum_i c_i cos(k theta_i) for k = 0..K-1 by one
@@ -49,25 +55,26 @@ func (t *cosTransform) errBound(k int) float64 {
 // The angles are given in double-double (th), and each node's offset from
 // its grid point is formed from them in double-double, so that the
 // transform at degree k is not spoiled by k times the rounding of theta_i.
-func cosSums(th []dd, c []float64, K int) *cosTransform {
+func cosSums(th []dd, c []float64, K int, par nufftParams) *cosTransform {
 	piOnce.Do(buildPi)
 	M := 2 * K // the band -K..K of the even extension
-	half := niceSize(nufftOversample * M / 2)
+	spread := par.spread
+	half := niceSize(int(math.Ceil(par.ratio * float64(M) / 2)))
 	Mr := 2 * half
 	R := float64(Mr) / float64(M)
-	tau := math.Pi * nufftSpread / (float64(M) * float64(M) * R * (R - 0.5))
+	tau := math.Pi * float64(spread) / (float64(M) * float64(M) * R * (R - 0.5))
 	h := ddDiv(ddMulF(ddPi, 2), ddF(float64(Mr)))
 	hf := h.hi
-	e3 := make([]float64, nufftSpread+1)
+	e3 := make([]float64, spread+1)
 	for l := range e3 {
 		d := float64(l) * hf
 		e3[l] = math.Exp(-d * d / (4 * tau))
 	}
 	f := make([]float64, half+1)
+	// m lies within spread of [0, half], so one reflection folds it.
 	add := func(m int, v float64) {
-		m %= Mr
 		if m < 0 {
-			m += Mr
+			m = -m
 		}
 		if m > half {
 			m = Mr - m
@@ -93,10 +100,10 @@ func cosSums(th []dd, c []float64, K int) *cosTransform {
 		ie2 := 1 / e2
 		add(m0, v)
 		up, dn := v, v
-		for l := 1; l <= nufftSpread; l++ {
+		for l := 1; l <= spread; l++ {
 			up *= e2
 			add(m0+l, up*e3[l])
-			if l < nufftSpread {
+			if l < spread {
 				dn *= ie2
 				add(m0-l, dn*e3[l])
 			}
@@ -105,14 +112,17 @@ func cosSums(th []dd, c []float64, K int) *cosTransform {
 	D := fourier.NewDCT(half+1).Transform(f, f)
 	scale := math.Sqrt(math.Pi/tau) / float64(Mr)
 	F := make([]float64, K)
+	amp := make([]float64, K)
 	for k := range F {
 		fk := float64(k)
-		F[k] = D[k] * scale * math.Exp(fk*fk*tau)
+		amp[k] = math.Exp(fk * fk * tau)
+		F[k] = D[k] * scale * amp[k]
 	}
 	edge := float64(M/2) * float64(M/2) * tau
-	trunc := 2 * (math.Exp(-float64(nufftSpread*nufftSpread)*hf*hf/(4*tau)+edge) +
+	trunc := 2 * (math.Exp(-float64(spread*spread)*hf*hf/(4*tau)+edge) +
 		math.Exp(-tau*float64(Mr)*float64(Mr-M)))
-	return &cosTransform{F: F, tau: tau, grid: Mr, trunc: trunc}
+	return &cosTransform{F: F, amp: amp, tau: tau, grid: Mr, trunc: trunc,
+		rounds: float64(4*spread) + 8*math.Log2(float64(Mr))}
 }
 
 // niceSize returns the smallest n >= m of the form 2^a 3^b 5^c (a fast
