@@ -165,7 +165,7 @@ func (r *LegendreReference) stieltjes(th dd) (p, dp dd, conv bool) {
 		hq := ddMul(h, q)
 		term := ddMul(hq, c)
 		p = ddAdd(p, term)
-		dterm := ddAdd(ddMulF(ddMul(hq, s), -(n + m + 0.5)), ddMulF(ddMul(ddMul(hq, cot), c), -(m + 0.5)))
+		dterm := ddAdd(ddMulF(ddMul(hq, s), -(n+m+0.5)), ddMulF(ddMul(ddMul(hq, cot), c), -(m+0.5)))
 		dp = ddAdd(dp, dterm)
 		mag := math.Abs(hq.hi) * (n + m + 1)
 		if m == 0 {

@@ -42,7 +42,7 @@ func TestLegendreReferenceAgrees(t *testing.T) {
 			dist := 1 - math.Abs(e.X[0])
 			we := math.Ldexp(e.WM[0], e.WE) * (1 + e.WM[1]/e.WM[0])
 			wg2 := (g.WM[0] + g.WM[1]) * math.Ldexp(1, g.WE)
-			dw := math.Abs((math.Ldexp(g.WM[0], g.WE-e.WE) - e.WM[0]) + (math.Ldexp(g.WM[1], g.WE-e.WE) - e.WM[1])) / math.Abs(e.WM[0])
+			dw := math.Abs((math.Ldexp(g.WM[0], g.WE-e.WE)-e.WM[0])+(math.Ldexp(g.WM[1], g.WE-e.WE)-e.WM[1])) / math.Abs(e.WM[0])
 			if math.Abs(dx) > 1e-18*dist || dw > 1e-19 {
 				t.Errorf("n=%d start %v: node off by %.3g (distance to the end %.3g), weight by %.3g relative (%v vs %v)", n, starts[j], dx, dist, dw, wg2, we)
 			}
