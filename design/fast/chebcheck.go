@@ -71,10 +71,14 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 	for _, v := range w {
 		sumAbs += math.Abs(v)
 	}
-	mu := JacobiChebyshevMoments(dd{a[0], a[1]}, dd{b[0], b[1]}, dd{mass[0], mass[1]}, maxDeg)
-	for k := range mu {
-		mu[k] = ddMul(mu[k], H)
-	}
+	muDone := make(chan []dd, 1)
+	go func() {
+		mu := JacobiChebyshevMoments(dd{a[0], a[1]}, dd{b[0], b[1]}, dd{mass[0], mass[1]}, maxDeg)
+		for k := range mu {
+			mu[k] = ddMul(mu[k], H)
+		}
+		muDone <- mu
+	}()
 	// The audit's scale at degree k is at least sum_i |w_i x_i| k
 	// |sin(k theta_i)| / (half sin theta_i) >= k sum_i a_i (1 - cos(2k
 	// theta_i)) / 2 (|s| >= s^2), a_i = |w_i x_i| / (half sin theta_i): a
@@ -102,7 +106,7 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 	go func() { doneA <- cosSums(phi, av, maxDeg+1, nufftCoarse) }()
 	S, sc := directChebyshev(x, t, w, H.hi, direct)
 	edge := directCos(th, w, maxDeg)
-	tr, trA := <-done, <-doneA
+	tr, trA, mu := <-done, <-doneA, <-muDone
 	if err := ctx.Err(); err != nil {
 		return ChebyshevCheck{}, err
 	}
@@ -229,15 +233,34 @@ func JacobiChebyshevMoments(a, b, mass dd, K int) []dd {
 	m[0] = mass
 	s := ddAdd(a, b)
 	ba2 := ddMulF(ddSub(b, a), 2)
+	sym := ba2.hi == 0 // the odd moments vanish
 	if K >= 1 {
 		m[1] = ddDiv(ddMul(mass, ddSub(b, a)), ddAdd(s, ddF(2)))
 	}
 	for k := 1; k < K; k++ {
 		fk := float64(k)
-		num := ddAdd(ddMul(ba2, m[k]), ddMul(ddSub(ddF(fk-2), s), m[k-1]))
-		m[k+1] = ddDiv(num, ddAdd(ddF(fk+2), s))
+		num := ddMul(ddSub(ddF(fk-2), s), m[k-1])
+		if !sym {
+			num = ddAdd(ddMul(ba2, m[k]), num)
+		}
+		if s.lo == 0 {
+			// k + 2 + s is exact in float64 (s a short binary fraction,
+			// as for every half-integer exponent) for k below 2^40.
+			m[k+1] = ddDivF(num, fk+2+s.hi)
+		} else {
+			m[k+1] = ddDiv(num, ddAdd(ddF(fk+2), s))
+		}
 	}
 	return m
+}
+
+// ddDivF returns a / b for a float64 b in double-double (two correction
+// steps of the float64 quotient).
+func ddDivF(a dd, b float64) dd {
+	q1 := a.hi / b
+	p := twoProd(q1, b)
+	r := (a.hi - p.hi - p.lo + a.lo) / b
+	return quickTwoSum(q1, r)
 }
 
 // JacobiChebyshevMomentsF is JacobiChebyshevMoments of float64 arguments,

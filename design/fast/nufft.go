@@ -113,16 +113,25 @@ func cosSums(th []dd, c []float64, K int, par nufftParams) *cosTransform {
 	scale := math.Sqrt(math.Pi/tau) / float64(Mr)
 	F := make([]float64, K)
 	amp := make([]float64, K)
+	// exp(k^2 tau) exactly every 64 degrees, by the step factors exp((2k+1)
+	// tau) in between (at most 128 roundings, counted in rounds).
+	var step, grow float64
 	for k := range F {
 		fk := float64(k)
-		amp[k] = math.Exp(fk * fk * tau)
+		if k%64 == 0 {
+			amp[k] = math.Exp(fk * fk * tau)
+			step, grow = math.Exp((2*fk+1)*tau), math.Exp(2*tau)
+		} else {
+			amp[k] = amp[k-1] * step
+			step *= grow
+		}
 		F[k] = D[k] * scale * amp[k]
 	}
 	edge := float64(M/2) * float64(M/2) * tau
 	trunc := 2 * (math.Exp(-float64(spread*spread)*hf*hf/(4*tau)+edge) +
 		math.Exp(-tau*float64(Mr)*float64(Mr-M)))
 	return &cosTransform{F: F, amp: amp, tau: tau, grid: Mr, trunc: trunc,
-		rounds: float64(4*spread) + 8*math.Log2(float64(Mr))}
+		rounds: float64(4*spread) + 8*math.Log2(float64(Mr)) + 128}
 }
 
 // niceSize returns the smallest n >= m of the form 2^a 3^b 5^c (a fast
