@@ -27,6 +27,10 @@ type ChebyshevCheck struct {
 	Agreement float64
 	// Grid is the length of the transform's periodic grid.
 	Grid int
+	// Symmetric is set when the rule was exactly symmetric about 0 and
+	// the weight even: the odd degrees then hold exactly, and the
+	// transforms ran over half the nodes at half the band.
+	Symmetric bool
 }
 
 // CheckChebyshev tests a rule on a finite interval for exactness in the
@@ -79,45 +83,35 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 		}
 		muDone <- mu
 	}()
-	// The audit's scale at degree k is at least sum_i |w_i x_i| k
-	// |sin(k theta_i)| / (half sin theta_i) >= k sum_i a_i (1 - cos(2k
-	// theta_i)) / 2 (|s| >= s^2), a_i = |w_i x_i| / (half sin theta_i): a
-	// second transform, at the angles 2 theta_i, gives this lower bound
-	// for every k.
-	phi := make([]dd, n)
-	av := make([]float64, n)
-	var sumA float64
-	for i := range th {
-		// cos(2k theta) = cos(2k (pi - theta)): the angle kept in [0, pi].
-		phi[i] = dd{2 * th[i].hi, 2 * th[i].lo}
-		if th[i].hi > math.Pi/2 {
-			phi[i] = ddMulF(ddSub(ddPi, th[i]), 2)
-		}
-		if sn := math.Sin(th[i].hi); sn > 0 {
-			av[i] = math.Abs(w[i]*x[i]) / (H.hi * sn) * (1 - 1e-12)
-		}
-		sumA += av[i]
-	}
-	// The two transforms on goroutines of their own, the direct sums and
-	// the edge degree on the others.
-	done := make(chan *cosTransform, 1)
-	doneA := make(chan *cosTransform, 1)
-	go func() { done <- cosSums(th, w, maxDeg+1, nufftFine) }()
-	go func() { doneA <- cosSums(phi, av, maxDeg+1, nufftCoarse) }()
+	sym := unit && a == b && symmetric(x, w)
+	tf, err := chebTransforms(x, w, th, H.hi, maxDeg, sym)
 	S, sc := directChebyshev(x, t, w, H.hi, direct)
-	edge := directCos(th, w, maxDeg)
-	tr, trA, mu := <-done, <-doneA, <-muDone
+	edgeDeg := maxDeg
+	if sym && edgeDeg%2 == 1 {
+		edgeDeg--
+	}
+	edge := directCos(th, w, edgeDeg)
+	tr, trA, mu := <-tf.fine, <-tf.coarse, <-muDone
+	_ = err
 	if err := ctx.Err(); err != nil {
 		return ChebyshevCheck{}, err
 	}
-	lower := func(k int) float64 {
-		fk := float64(k)
-		return math.Max(0, fk*(sumA-trA.F[k]-trA.errBound(k)*sumA)/2)
+	step := 1
+	if sym {
+		step = 2
 	}
-	c := ChebyshevCheck{Degree: -1, Direct: direct, DirectTol: tol, Grid: tr.grid,
-		BoundLow: tr.errBound(0), BoundHigh: tr.errBound(maxDeg)}
+	// F(k) and its bound: at index k/step; with sym the odd degrees are
+	// exactly 0 (mirror pairs cancel exactly) and need no transform.
+	F := func(k int) float64 { return tr.F[k/step] }
+	bound := func(k int) float64 { return tr.errBound(k/step) * sumAbs }
+	lower := func(k int) float64 {
+		j := k / step
+		return math.Max(0, float64(k)*(tf.sumA-trA.F[j]-trA.errBound(j)*tf.sumA)/2)
+	}
+	c := ChebyshevCheck{Degree: -1, Direct: direct, DirectTol: tol, Grid: tr.grid, Symmetric: sym,
+		BoundLow: tr.errBound(0), BoundHigh: tr.errBound(edgeDeg / step)}
 	agree := func(k int, s dd) error {
-		share := math.Abs(ddSub(s, ddF(tr.F[k])).float()) / (tr.errBound(k) * sumAbs)
+		share := math.Abs(ddSub(s, ddF(F(k))).float()) / bound(k)
 		c.Agreement = math.Max(c.Agreement, share)
 		if !(share <= 1) {
 			return fmt.Errorf("the nonuniform FFT of the exactness check missed its error bound at degree %d (%.3g times the bound)", k, share)
@@ -125,6 +119,9 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 		return nil
 	}
 	for k := 0; k <= direct; k++ {
+		if sym && k%2 == 1 {
+			continue
+		}
 		if err := agree(k, S[k]); err != nil {
 			return c, err
 		}
@@ -132,7 +129,7 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 			return c, fmt.Errorf("the lower bound of the audit's scale at degree %d, %.6g, exceeds the scale %.6g", k, l, sc[k])
 		}
 	}
-	if err := agree(maxDeg, edge); err != nil {
+	if err := agree(edgeDeg, edge); err != nil {
 		return c, err
 	}
 	for k := 0; k <= maxDeg; k++ {
@@ -146,7 +143,14 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 			}
 			c.DirectWorst = math.Max(c.DirectWorst, share)
 		}
-		share := math.Abs(ddSub(ddF(tr.F[k]), mu[k]).float()) / (tr.errBound(k)*sumAbs + tol*lower(k))
+		if sym && k%2 == 1 {
+			if mu[k].hi != 0 {
+				break
+			}
+			c.Degree = k
+			continue
+		}
+		share := math.Abs(ddSub(ddF(F(k)), mu[k]).float()) / (bound(k) + tol*lower(k))
 		if !(share <= 1) {
 			break
 		}
@@ -154,6 +158,79 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 		c.Degree = k
 	}
 	return c, nil
+}
+
+// symmetric reports whether the rule is exactly symmetric about 0: x_i =
+// -x_(n-1-i) and w_i = w_(n-1-i) as float64 values.
+func symmetric(x, w []float64) bool {
+	n := len(x)
+	for i := 0; i < n/2; i++ {
+		if x[i] != -x[n-1-i] || w[i] != w[n-1-i] {
+			return false
+		}
+	}
+	return n%2 == 0 || x[n/2] == 0
+}
+
+// chebPending is the pair of transforms chebTransforms started.
+type chebPending struct {
+	fine, coarse chan *cosTransform
+	sumA         float64
+}
+
+// chebTransforms starts, each on a goroutine of its own, the transform
+// of sum_i w_i cos(k theta_i) (fine) and the one behind the lower bound
+// of the audit's scale (coarse): at degree k that scale is at least
+// sum_i |w_i x_i| k |sin(k theta_i)| / (half sin theta_i) >= k sum_i a_i
+// (1 - cos(2k theta_i)) / 2 (as |s| >= s^2), a_i = |w_i x_i| / (half sin
+// theta_i), and the coarse transform gives sum_i a_i cos(2k theta_i) for
+// every k. For a symmetric rule (sym) both run over the nodes x_i >= 0
+// with the doubled angles, mirror pairs weighted twice: sum_i w_i cos(2j
+// theta_i) over all nodes is sum over that half of c_i cos(j 2 theta_i),
+// so the even degrees 2j cost a transform of half the band.
+func chebTransforms(x, w []float64, th []dd, half float64, maxDeg int, sym bool) (chebPending, error) {
+	n := len(x)
+	ang, c := th, w
+	K := maxDeg + 1
+	if sym {
+		m := (n + 1) / 2
+		ang, c = make([]dd, m), make([]float64, m)
+		for j := 0; j < m; j++ {
+			i := n - m + j // the nodes x_i >= 0
+			ang[j], c[j] = doubled(th[i]), 2*w[i]
+			if x[i] == 0 {
+				c[j] = w[i]
+			}
+		}
+		K = maxDeg/2 + 1
+	}
+	phi := make([]dd, len(ang))
+	av := make([]float64, len(ang))
+	var p chebPending
+	for j := range ang {
+		phi[j] = doubled(ang[j])
+		i := j
+		if sym {
+			i = n - len(ang) + j
+		}
+		if sn := math.Sin(th[i].hi); sn > 0 {
+			av[j] = math.Abs(c[j]*x[i]) / (half * sn) * (1 - 1e-12)
+		}
+		p.sumA += av[j]
+	}
+	p.fine, p.coarse = make(chan *cosTransform, 1), make(chan *cosTransform, 1)
+	go func() { p.fine <- cosSums(ang, c, K, nufftFine) }()
+	go func() { p.coarse <- cosSums(phi, av, K, nufftCoarse) }()
+	return p, nil
+}
+
+// doubled returns 2a folded into [0, pi] (cos(k 2a) = cos(k (2 pi -
+// 2a))), for a in [0, pi].
+func doubled(a dd) dd {
+	if a.hi > math.Pi/2 {
+		return ddMulF(ddSub(ddPi, a), 2)
+	}
+	return dd{2 * a.hi, 2 * a.lo}
 }
 
 // directChebyshev returns S_k = sum_i w_i T_k(t_i) for k = 0..K in

@@ -55,10 +55,19 @@ func TestCheckChebyshevLegendre(t *testing.T) {
 		if c.Degree != 2*n-1 {
 			t.Errorf("n=%d: degree %d", n, c.Degree)
 		}
-		w[n/3] *= 1 + 1e-9
-		c, err = fast.CheckChebyshev(context.Background(), x, w, unitLo, unitHalf, [2]float64{2, 0}, [2]float64{}, [2]float64{}, 2*n-1, 20, 1e-15)
-		if err != nil || c.Degree >= 2*n-1 {
-			t.Errorf("n=%d perturbed: degree %d, %v", n, c.Degree, err)
+		if !c.Symmetric {
+			t.Errorf("n=%d: the symmetric rule was not seen as symmetric", n)
+		}
+		// Perturbed in a mirror pair (the symmetric path) and alone.
+		for _, pair := range []bool{true, false} {
+			w[n/3] *= 1 + 1e-9
+			if pair {
+				w[n-1-n/3] = w[n/3]
+			}
+			c, err = fast.CheckChebyshev(context.Background(), x, w, unitLo, unitHalf, [2]float64{2, 0}, [2]float64{}, [2]float64{}, 2*n-1, 20, 1e-15)
+			if err != nil || c.Degree >= 2*n-1 || c.Symmetric != pair {
+				t.Errorf("n=%d perturbed (pair %v): degree %d, symmetric %v, %v", n, pair, c.Degree, c.Symmetric, err)
+			}
 		}
 	}
 }
