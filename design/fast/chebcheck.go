@@ -56,6 +56,12 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 	n := len(x)
 	L, H := dd{lo[0], lo[1]}, dd{half[0], half[1]}
 	unit := L.hi == -1 && L.lo == 0 && H.hi == 1 && H.lo == 0
+	sym := unit && a == b && symmetric(x, w)
+	// With sym only the angles of the nodes x_i >= 0 are used.
+	from := 0
+	if sym {
+		from = n / 2
+	}
 	t := make([]dd, n)
 	th := make([]dd, n)
 	parallelFor(n, func(i0, i1 int) {
@@ -65,7 +71,10 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 				ti = ddSub(ddDiv(ddSub(ti, L), H), ddF(1))
 			}
 			ti.hi = math.Max(-1, math.Min(1, ti.hi))
-			t[i], th[i] = ti, ddAcos(ti)
+			t[i] = ti
+			if i >= from {
+				th[i] = ddAcos(ti)
+			}
 		}
 	})
 	if err := ctx.Err(); err != nil {
@@ -83,22 +92,16 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 		}
 		muDone <- mu
 	}()
-	sym := unit && a == b && symmetric(x, w)
-	tf, err := chebTransforms(x, w, th, H.hi, maxDeg, sym)
+	tf := chebTransforms(x, w, th, H.hi, maxDeg, sym)
 	S, sc := directChebyshev(x, t, w, H.hi, direct)
-	edgeDeg := maxDeg
-	if sym && edgeDeg%2 == 1 {
-		edgeDeg--
+	edgeDeg, step := maxDeg, 1
+	if sym {
+		step, edgeDeg = 2, maxDeg-maxDeg%2
 	}
-	edge := directCos(th, w, edgeDeg)
+	edge := directCos(tf.ang, tf.c, edgeDeg/step)
 	tr, trA, mu := <-tf.fine, <-tf.coarse, <-muDone
-	_ = err
 	if err := ctx.Err(); err != nil {
 		return ChebyshevCheck{}, err
-	}
-	step := 1
-	if sym {
-		step = 2
 	}
 	// F(k) and its bound: at index k/step; with sym the odd degrees are
 	// exactly 0 (mirror pairs cancel exactly) and need no transform.
@@ -176,6 +179,8 @@ func symmetric(x, w []float64) bool {
 type chebPending struct {
 	fine, coarse chan *cosTransform
 	sumA         float64
+	ang          []dd      // the angles of the fine transform
+	c            []float64 // and its weights
 }
 
 // chebTransforms starts, each on a goroutine of its own, the transform
@@ -188,7 +193,7 @@ type chebPending struct {
 // with the doubled angles, mirror pairs weighted twice: sum_i w_i cos(2j
 // theta_i) over all nodes is sum over that half of c_i cos(j 2 theta_i),
 // so the even degrees 2j cost a transform of half the band.
-func chebTransforms(x, w []float64, th []dd, half float64, maxDeg int, sym bool) (chebPending, error) {
+func chebTransforms(x, w []float64, th []dd, half float64, maxDeg int, sym bool) chebPending {
 	n := len(x)
 	ang, c := th, w
 	K := maxDeg + 1
@@ -221,7 +226,8 @@ func chebTransforms(x, w []float64, th []dd, half float64, maxDeg int, sym bool)
 	p.fine, p.coarse = make(chan *cosTransform, 1), make(chan *cosTransform, 1)
 	go func() { p.fine <- cosSums(ang, c, K, nufftFine) }()
 	go func() { p.coarse <- cosSums(phi, av, K, nufftCoarse) }()
-	return p, nil
+	p.ang, p.c = ang, c
+	return p
 }
 
 // doubled returns 2a folded into [0, pi] (cos(k 2a) = cos(k (2 pi -
@@ -275,7 +281,9 @@ func directChebyshev(x []float64, t []dd, w []float64, halfF float64, K int) ([]
 	return S, Sc
 }
 
-// directCos returns sum_i w_i cos(k theta_i) in double-double.
+// directCos returns sum_i w_i cos(k theta_i) in double-double (for a
+// symmetric rule over the half at the doubled angles: the even degree
+// 2k).
 func directCos(th []dd, w []float64, k int) dd {
 	n := len(th)
 	chunks := (n + degreeChunk - 1) / degreeChunk
