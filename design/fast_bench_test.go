@@ -17,3 +17,14 @@ func BenchmarkBuildFastLegendre1e6(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkBuildFastLegendre1e7 is BenchmarkBuildFastLegendre1e6 at 10^7
+// points.
+func BenchmarkBuildFastLegendre1e7(b *testing.B) {
+	f := fastFamily(b, "legendre", nil, nil, "")
+	for i := 0; i < b.N; i++ {
+		if _, err := design.BuildFast(context.Background(), f, "gauss", 10000000, design.FastOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -261,10 +261,17 @@ func directChebyshev(x []float64, t []dd, w []float64, halfF float64, K int) ([]
 			u0, u1 := 0.0, 1.0 // U_{k-2}, U_{k-1}
 			s[0] = ddAdd(s[0], ddF(w[i]))
 			sc[0] += aw
+			// The sums by the cheaper double-double addition (its error
+			// relative to the terms, about 2^-104 of sum |w_i|).
+			exact := t[i].lo == 0
 			for k := 1; k <= K; k++ {
-				s[k] = ddAdd(s[k], ddMulF(t1, w[i]))
+				s[k] = ddAddFast(s[k], ddMulF(t1, w[i]))
 				sc[k] += aw * (math.Abs(t1.hi) + ax*float64(k)*math.Abs(u1))
-				t0, t1 = t1, ddAddFast(ddMul(tt, t1), ddNeg(t0))
+				if exact {
+					t0, t1 = t1, ddAddFast(ddMulF(t1, tt.hi), ddNeg(t0))
+				} else {
+					t0, t1 = t1, ddAddFast(ddMul(tt, t1), ddNeg(t0))
+				}
 				u0, u1 = u1, 2*tf*u1-u0
 			}
 		}
@@ -319,18 +326,25 @@ func JacobiChebyshevMoments(a, b, mass dd, K int) []dd {
 	s := ddAdd(a, b)
 	ba2 := ddMulF(ddSub(b, a), 2)
 	sym := ba2.hi == 0 // the odd moments vanish
+	// With s a multiple of 2^-20 below 2^20 (every half-integer sum of
+	// exponents), k - 2 - s and k + 2 + s are exact in float64 for k
+	// below 2^32.
+	short := s.lo == 0 && math.Abs(s.hi) < 0x1p20 && s.hi*0x1p20 == math.Trunc(s.hi*0x1p20)
 	if K >= 1 {
 		m[1] = ddDiv(ddMul(mass, ddSub(b, a)), ddAdd(s, ddF(2)))
 	}
 	for k := 1; k < K; k++ {
 		fk := float64(k)
-		num := ddMul(ddSub(ddF(fk-2), s), m[k-1])
+		var num dd
+		if short {
+			num = ddMulF(m[k-1], fk-2-s.hi)
+		} else {
+			num = ddMul(ddSub(ddF(fk-2), s), m[k-1])
+		}
 		if !sym {
 			num = ddAdd(ddMul(ba2, m[k]), num)
 		}
-		if s.lo == 0 {
-			// k + 2 + s is exact in float64 (s a short binary fraction,
-			// as for every half-integer exponent) for k below 2^40.
+		if short {
 			m[k+1] = ddDivF(num, fk+2+s.hi)
 		} else {
 			m[k+1] = ddDiv(num, ddAdd(ddF(fk+2), s))

@@ -98,8 +98,22 @@ func cosSums(th []dd, c []float64, K int, par nufftParams) *cosTransform {
 		v := 0.5 * c[i] * math.Exp(-xi*xi/(4*tau))
 		e2 := math.Exp(xi * hf / (2 * tau))
 		ie2 := 1 / e2
-		add(m0, v)
 		up, dn := v, v
+		if m0 >= spread && m0+spread <= half {
+			// Away from the grid's ends no value needs folding.
+			g := f[m0-spread : m0+spread+1]
+			g[spread] += v
+			for l := 1; l <= spread; l++ {
+				up *= e2
+				g[spread+l] += up * e3[l]
+				if l < spread {
+					dn *= ie2
+					g[spread-l] += dn * e3[l]
+				}
+			}
+			continue
+		}
+		add(m0, v)
 		for l := 1; l <= spread; l++ {
 			up *= e2
 			add(m0+l, up*e3[l])
