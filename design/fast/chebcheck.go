@@ -62,7 +62,11 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 	if sym {
 		from = n / 2
 	}
-	t := make([]dd, n)
+	// On [-1, 1] the variable is the node itself (t stays nil).
+	var t []dd
+	if !unit {
+		t = make([]dd, n)
+	}
 	th := make([]dd, n)
 	parallelFor(n, func(i0, i1 int) {
 		for i := i0; i < i1; i++ {
@@ -71,7 +75,9 @@ func CheckChebyshev(ctx context.Context, x, w []float64, lo, half, mass, a, b [2
 				ti = ddSub(ddDiv(ddSub(ti, L), H), ddF(1))
 			}
 			ti.hi = math.Max(-1, math.Min(1, ti.hi))
-			t[i] = ti
+			if !unit {
+				t[i] = ti
+			}
 			if i >= from {
 				th[i] = ddAcos(ti)
 			}
@@ -240,13 +246,13 @@ func doubled(a dd) dd {
 }
 
 // directChebyshev returns S_k = sum_i w_i T_k(t_i) for k = 0..K in
-// double-double, by the recurrence T_{k+1} = 2 t T_k - T_{k-1} (stable on
+// double-double (t nil: t_i = x_i), by the recurrence T_{k+1} = 2 t T_k - T_{k-1} (stable on
 // [-1, 1]: its rounding grows like k, not faster), and the audit's scale
 // sc_k = sum_i |w_i| (|T_k(t_i)| + |x_i T_k'(t_i)| / half) in float64
 // (T_k' = k U_{k-1}), chunk by chunk in parallel and the chunks added in
 // order, so that the result does not depend on the number of cores.
 func directChebyshev(x []float64, t []dd, w []float64, halfF float64, K int) ([]dd, []float64) {
-	n := len(t)
+	n := len(x)
 	chunks := (n + degreeChunk - 1) / degreeChunk
 	part := make([][]dd, chunks)
 	partSc := make([][]float64, chunks)
@@ -254,16 +260,20 @@ func directChebyshev(x []float64, t []dd, w []float64, halfF float64, K int) ([]
 		s := make([]dd, K+1)
 		sc := make([]float64, K+1)
 		for i := c * degreeChunk; i < min((c+1)*degreeChunk, n); i++ {
-			t0, t1 := ddF(1), t[i]
-			tt := dd{2 * t[i].hi, 2 * t[i].lo}
+			ti := ddF(x[i])
+			if t != nil {
+				ti = t[i]
+			}
+			t0, t1 := ddF(1), ti
+			tt := dd{2 * ti.hi, 2 * ti.lo}
 			aw, ax := math.Abs(w[i]), math.Abs(x[i])/halfF
-			tf := t[i].hi
+			tf := ti.hi
 			u0, u1 := 0.0, 1.0 // U_{k-2}, U_{k-1}
 			s[0] = ddAdd(s[0], ddF(w[i]))
 			sc[0] += aw
 			// The sums by the cheaper double-double addition (its error
 			// relative to the terms, about 2^-104 of sum |w_i|).
-			exact := t[i].lo == 0
+			exact := ti.lo == 0
 			for k := 1; k <= K; k++ {
 				s[k] = ddAddFast(s[k], ddMulF(t1, w[i]))
 				sc[k] += aw * (math.Abs(t1.hi) + ax*float64(k)*math.Abs(u1))

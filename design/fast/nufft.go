@@ -28,7 +28,7 @@ var (
 // theta_i) for k < K, and what bounds its error.
 type cosTransform struct {
 	F      []float64
-	amp    []float64 // the deconvolution factors exp(k^2 tau)
+	amp    []float64 // the deconvolution factor exp(k^2 tau) at the end of each block of 64 degrees
 	tau    float64   // the Gaussian's parameter
 	grid   int       // Mr, points of the periodic grid
 	trunc  float64   // truncation and aliasing at the band's edge, relative to sum |c|
@@ -42,7 +42,8 @@ type cosTransform struct {
 // roundings of the grid's l1 norm, which the normalisation makes sum |c|)
 // times the deconvolution factor exp(k^2 tau).
 func (t *cosTransform) errBound(k int) float64 {
-	return t.trunc + 0x1p-53*t.rounds*t.amp[k]
+	// exp(k^2 tau) grows with k: the block's last value bounds it.
+	return t.trunc + 0x1p-53*t.rounds*t.amp[k/64]*(1+1e-12)
 }
 
 // cosSums returns F[k] = sum_i c_i cos(k theta_i) for k = 0..K-1 by one
@@ -126,20 +127,22 @@ func cosSums(th []dd, c []float64, K int, par nufftParams) *cosTransform {
 	D := fourier.NewDCT(half+1).Transform(f, f)
 	scale := math.Sqrt(math.Pi/tau) / float64(Mr)
 	F := make([]float64, K)
-	amp := make([]float64, K)
+	amp := make([]float64, (K+63)/64)
 	// exp(k^2 tau) exactly every 64 degrees, by the step factors exp((2k+1)
 	// tau) in between (at most 128 roundings, counted in rounds).
-	var step, grow float64
+	var a, step, grow float64
 	for k := range F {
 		fk := float64(k)
 		if k%64 == 0 {
-			amp[k] = math.Exp(fk * fk * tau)
+			a = math.Exp(fk * fk * tau)
 			step, grow = math.Exp((2*fk+1)*tau), math.Exp(2*tau)
+			last := float64(min(k+63, K-1))
+			amp[k/64] = math.Exp(last * last * tau)
 		} else {
-			amp[k] = amp[k-1] * step
+			a *= step
 			step *= grow
 		}
-		F[k] = D[k] * scale * amp[k]
+		F[k] = D[k] * scale * a
 	}
 	edge := float64(M/2) * float64(M/2) * tau
 	trunc := 2 * (math.Exp(-float64(spread*spread)*hf*hf/(4*tau)+edge) +
