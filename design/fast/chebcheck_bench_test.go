@@ -43,3 +43,10 @@ func benchCheck(b *testing.B, x, w []float64, mass, a, be [2]float64, direct int
 		_ = c
 	})
 }
+
+func BenchmarkCheckChebyshevLegendre1e7(b *testing.B) {
+	n := 10000000
+	x, w := make([]float64, n), make([]float64, n)
+	fast.Legendre(n, x, w)
+	benchCheck(b, x, w, [2]float64{2, 0}, [2]float64{}, [2]float64{}, 8)
+}
