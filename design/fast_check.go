@@ -9,12 +9,21 @@ import (
 	"quadwright/moments"
 )
 
-// fastSamples returns the indices BuildFast compares with the reference:
-// about fastSampleBudget/n of them (at least fastMinSamples, at most
-// fastMaxSamples), an eighth next to each end and in the middle and the
+// sampleCount is how many nodes BuildFast compares with the reference:
+// fastMaxSamples for Gauss-Legendre, whose reference costs O(1) per point
+// (fast.LegendreReference), else about fastSampleBudget/n (at least
+// fastMinSamples, at most fastMaxSamples), the recurrence costing O(n).
+func (p *fastPlan) sampleCount(n int) int {
+	if p.kind == fast.GaussLegendre {
+		return fastMaxSamples
+	}
+	return int(min(fastMaxSamples, max(fastMinSamples, fastSampleBudget/float64(n))))
+}
+
+// fastSamples returns count indices for BuildFast to compare with the
+// reference (fewer when there are fewer free nodes): an eighth next to each end and in the middle and the
 // rest evenly spread, among the free nodes only.
-func fastSamples(n int, free func(int) bool) []int {
-	count := int(min(fastMaxSamples, max(fastMinSamples, fastSampleBudget/float64(n))))
+func fastSamples(n int, free func(int) bool, count int) []int {
 	seen := map[int]bool{}
 	var idx []int
 	add := func(i int) {
@@ -47,9 +56,10 @@ func fastSamples(n int, free func(int) bool) []int {
 
 const fastRefPrec = 256
 
-// sampleAccuracy compares the printed points at idx with fast.Reference
-// (Newton's method on the recurrence of the Gauss rule whose nodes they
-// are, in double-double, from the unmapped computed nodes starts), the
+// sampleAccuracy compares the printed points at idx with
+// fast.LegendreReference (Gauss-Legendre) or fast.Reference (Newton's
+// method on the recurrence of the Gauss rule whose nodes they are), both
+// in double-double from the unmapped computed nodes starts, the
 // reference mapped onto the interval at fastRefPrec bits.
 func (p *fastPlan) sampleAccuracy(ctx context.Context, x, w []float64, idx []int, starts []float64) (FastAccuracy, error) {
 	n := len(x)
@@ -87,10 +97,14 @@ func (p *fastPlan) sampleAccuracy(ctx context.Context, x, w []float64, idx []int
 	}
 	mh, _ := rec.Beta[0].Float64()
 	ml, _ := new(big.Float).Sub(rec.Beta[0], new(big.Float).SetFloat64(mh)).Float64()
-	ref := fast.NewReference(kind, refN, ratPair(a), ratPair(b), [2]float64{mh, ml})
-
 	m := newFastMap(p)
-	pts, err := ref.Points(ctx, starts)
+	var pts []fast.RefPoint
+	if p.kind == fast.GaussLegendre {
+		pts, err = fast.NewLegendreReference(n).Points(ctx, starts)
+	} else {
+		ref := fast.NewReference(kind, refN, ratPair(a), ratPair(b), [2]float64{mh, ml})
+		pts, err = ref.Points(ctx, starts)
+	}
 	if err != nil {
 		return FastAccuracy{}, err
 	}

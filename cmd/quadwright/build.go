@@ -45,13 +45,16 @@ by the fast O(N) path instead (design/fast: Bogaert's expansions for
 Legendre, Hale and Townsend's for Jacobi, Glaser, Liu and Rokhlin's march
 for Laguerre and Hermite), up to %d points; above %d points only this path
 builds. Its values are not guaranteed to be the nearest doubles: each rule
-is compared at up to 200 sampled nodes with Newton's method on the
-recurrence in double-double, and the measured accuracy in ulps is printed
-with it (a rule beyond the bounds is an error). Its degree is tested in
-float64 arithmetic through 2N-1 while the work N(K+1) stays within 2e8
-steps (N <= 10^4; for laguerre in double-double, 2e7), beyond that through the degree K
-the budget allows, which is then the degree reported (--verify full tests
-it all); construction_degree gives the degree it was built for. --engine
+is compared at up to 200 sampled nodes with Newton's method in
+double-double (on asymptotic series for Legendre, on the recurrence
+otherwise), and the measured accuracy in ulps is printed with it (a rule
+beyond the bounds is an error). On a finite interval its degree is tested
+through the construction degree in the Chebyshev basis (direct
+double-double sums for low degrees, a nonuniform FFT for all). For
+laguerre and hermite it is tested through 2N-1 while the work N(K+1) stays
+within 2e8 steps (laguerre in double-double, 2e7), beyond that through the
+degree K the budget allows, which is then the degree reported (--verify
+full tests it all); construction_degree gives the degree it was built for. --engine
 extended keeps the extended-precision engine (at most %d points).
 
 The options can also come from a spec file (TOML, one key per flag:
@@ -84,7 +87,7 @@ points = 12, interval = "0,1", ...); flags given beside it override it.`,
 	f.StringVar(&o.nodesFile, "nodes", "", "file of all the nodes, one decimal or p/q per line: the interpolatory weights for the measure are computed")
 	f.StringVarP(&o.output, "output", "o", "", "write the rule to this file (atomically) instead of standard output")
 	f.StringVar(&o.engine, "engine", "auto", fmt.Sprintf("auto: the fast float64 path (design/fast) in float64 mode from %d points for the families and kinds it serves (and up to %d points, beyond the engine's %d), else the extended-precision engine; fast or extended to choose", design.FastThreshold, design.FastMaxPoints, design.MaxPoints))
-	f.StringVar(&o.verify, "verify", "budget", "fast path exactness test: budget (through degree 2N-1 while N(K+1) <= 2e8 recurrence steps, else to the degree K that allows; degree reports what was tested) or full (through 2N-1 at any N: O(N^2))")
+	f.StringVar(&o.verify, "verify", "budget", "fast path exactness test for laguerre and hermite (finite intervals are always tested through the construction degree): budget (through degree 2N-1 while N(K+1) <= 2e8 recurrence steps, else to the degree K that allows; degree reports what was tested) or full (through 2N-1 at any N: O(N^2))")
 	addBuildFailOn(cmd, o)
 	return cmd
 }

@@ -128,17 +128,12 @@ func writeFastRule(w io.Writer, r *design.FastRule, fam *moments.Family, format 
 		if _, err := io.WriteString(w, "node,weight\n"); err != nil {
 			return err
 		}
-		buf := make([]byte, 0, 64)
-		for i := range r.X {
-			buf = strconv.AppendFloat(buf[:0], r.X[i], 'g', -1, 64)
+		return writeLines(w, len(r.X), func(buf []byte, i int) []byte {
+			buf = appendFloat(buf, r.X[i])
 			buf = append(buf, ',')
-			buf = strconv.AppendFloat(buf, r.W[i], 'g', -1, 64)
-			buf = append(buf, '\n')
-			if _, err := w.Write(buf); err != nil {
-				return err
-			}
-		}
-		return nil
+			buf = appendFloat(buf, r.W[i])
+			return append(buf, '\n')
+		})
 	case "json":
 		return writeFastJSON(w, r, fam)
 	}
@@ -160,12 +155,9 @@ func writeFastText(w io.Writer, r *design.FastRule) error {
 	}
 	iw := len(fmt.Sprint(r.Points()))
 	fmt.Fprintf(w, "%*s  %-24s  %s\n", iw, "i", " node", " weight")
-	for i := range r.X {
-		if _, err := fmt.Fprintf(w, "%*d  %-24s  %s\n", iw, i+1, padSign(fmtF(r.X[i])), padSign(fmtF(r.W[i]))); err != nil {
-			return err
-		}
-	}
-	return nil
+	return writeLines(w, len(r.X), func(buf []byte, i int) []byte {
+		return appendTextLine(buf, iw, i, r.X[i], r.W[i])
+	})
 }
 
 // writeFastJSON writes the rule file (the keys of rulefile.File, in its
@@ -184,18 +176,15 @@ func writeFastJSON(w io.Writer, r *design.FastRule, fam *moments.Family) error {
 	fmt.Fprintf(w, "  \"weight\": %s,\n  \"points\": %d,\n  \"degree\": %d,\n  \"digits\": 0,\n", js(r.Weight), r.Points(), r.Degree)
 	list := func(key string, v []float64, last bool) error {
 		fmt.Fprintf(w, "  %q: [", key)
-		buf := make([]byte, 0, 64)
-		for i, f := range v {
-			buf = buf[:0]
+		if err := writeLines(w, len(v), func(buf []byte, i int) []byte {
 			if i > 0 {
 				buf = append(buf, ',')
 			}
 			buf = append(buf, "\n    \""...)
-			buf = strconv.AppendFloat(buf, f, 'g', -1, 64)
-			buf = append(buf, '"')
-			if _, err := w.Write(buf); err != nil {
-				return err
-			}
+			buf = appendFloat(buf, v[i])
+			return append(buf, '"')
+		}); err != nil {
+			return err
 		}
 		_, err := io.WriteString(w, "\n  ],\n")
 		return err
