@@ -100,6 +100,10 @@ func checkInBasis(ctx context.Context, alpha, beta, integrals, slack []*big.Floa
 		wg.Add(1)
 		go func(wk, lo, hi int) {
 			defer wg.Done()
+			if paired && maxDeg >= 2 {
+				errs[wk] = squaresChunk(ctx, b, nodes[lo:hi], weights[lo:hi], sums[wk], bounds[wk], prec)
+				return
+			}
 			errs[wk] = exactnessChunk(ctx, a, b, nodes[lo:hi], weights[lo:hi], sums[wk], bounds[wk], prec, paired)
 		}(wk, lo, hi)
 	}

@@ -186,6 +186,9 @@ func toStage(xs, ws []*precision.Real, prec uint, fallback bool) *stage {
 // is exactly 0.
 func refineAll(ctx context.Context, a, b []*precision.Real, norm *precision.Real, xs, ws []*precision.Real, prec uint, symmetric bool, startBits int) error {
 	n := len(xs)
+	if symmetric && n >= 4 {
+		return refineSquares(ctx, a, b, norm, xs, ws, prec, startBits)
+	}
 	first := 0
 	if symmetric {
 		first = n / 2

@@ -30,57 +30,80 @@ import (
 // every printed digit against a computation at 64 more bits.
 
 // evalD2 runs the three-term recurrence with the first and second
-// derivatives of pi_n at one precision.
+// derivatives of pi_n. pi_n and pi_n' run at the level's precision; pi_n”
+// only scales the step's error estimate and the weight's first-order
+// correction delta pi_n”, a term some (top - noise)/2 bits below pi_n', so
+// it runs at about half the precision (c2), and as h = pi_n”/2, whose
+// recurrence h_k+1 = (x - alpha_k) h_k - beta_k h_k-1 + pi_k' needs no
+// doubling.
 type evalD2 struct {
 	n         int
 	symmetric bool // all alpha_k are 0: x - alpha_k is x
 	a, b      []*precision.Real
+	b2        []*precision.Real // b at the precision of the h chain
+	split     bool              // the h chain runs at a lower precision
 
-	p0, p1, d0, d1, s0, s1, t, u, v, w, z *precision.Real
+	p0, p1, d0, d1, t, u, v, w *precision.Real
+	h0, h1, hz, t2, u2, dd, x2 *precision.Real // the h chain
 	// After eval(x): p = pi_n(x), q = pi_{n-1}(x), dp = pi_n'(x),
-	// dq = pi_{n-1}'(x), ddp = pi_n''(x).
-	p, q, dp, dq, ddp *precision.Real
+	// dq = pi_{n-1}'(x), h = pi_n''(x)/2 (at the h chain's precision).
+	p, q, dp, dq, h *precision.Real
 }
 
-func newEvalD2(c *riseCoeffs) *evalD2 {
-	r := precision.NewRealSlice(11, c.prec)
-	return &evalD2{n: len(c.a), symmetric: c.symmetric, a: c.a, b: c.b,
-		p0: r[0], p1: r[1], d0: r[2], d1: r[3], s0: r[4], s1: r[5], t: r[6], u: r[7], v: r[8], w: r[9], z: r[10]}
+func newEvalD2(c, c2 *riseCoeffs) *evalD2 {
+	r := precision.NewRealSlice(8, c.prec)
+	e := &evalD2{n: len(c.a), symmetric: c.symmetric, a: c.a, b: c.b, b2: c2.b, split: c2.prec != c.prec,
+		p0: r[0], p1: r[1], d0: r[2], d1: r[3], t: r[4], u: r[5], v: r[6], w: r[7]}
+	h := precision.NewRealSlice(7, c2.prec)
+	e.h0, e.h1, e.hz, e.t2, e.u2, e.dd, e.x2 = h[0], h[1], h[2], h[3], h[4], h[5], h[6]
+	return e
 }
 
 func (e *evalD2) eval(x *precision.Real) {
-	p0, p1, d0, d1, s0, s1 := e.p0, e.p1, e.d0, e.d1, e.s0, e.s1
-	t, u, v, w, z := e.t, e.u, e.v, e.w, e.z
+	p0, p1, d0, d1 := e.p0, e.p1, e.d0, e.d1
+	t, u, v, w := e.t, e.u, e.v, e.w
+	h0, h1, hz, t2, u2, dd := e.h0, e.h1, e.hz, e.t2, e.u2, e.dd
 	p0.SetInt64(1)
 	p1.Sub(x, e.a[0])
 	d0.SetInt64(0)
 	d1.SetInt64(1)
-	s0.SetInt64(0)
-	s1.SetInt64(0)
-	xk := t
+	h0.SetInt64(0)
+	h1.SetInt64(0)
+	xk, xk2 := t, t2
 	if e.symmetric {
 		xk = x
+		xk2 = e.x2.Set(x)
+	}
+	if !e.split {
+		xk2, dd = xk, d1
 	}
 	for k := 1; k < e.n; k++ {
 		if !e.symmetric {
 			t.Sub(x, e.a[k])
+			if e.split {
+				t2.Set(t)
+			}
 		}
 		bk := e.b[k]
+		if e.split {
+			dd.Set(d1)
+		} else {
+			dd = d1
+		}
 		u.Mul(bk, p0)
 		v.MulSub(xk, p1, u) // pi_{k+1}
 		u.Mul(bk, d0)
 		w.MulSub(xk, d1, u)
 		w.Add(w, p1) // pi_{k+1}'
-		u.Mul(bk, s0)
-		z.MulSub(xk, s1, u)
-		u.MulPow2(d1, 1)
-		z.Add(z, u) // pi_{k+1}''
+		u2.Mul(e.b2[k], h0)
+		hz.MulSub(xk2, h1, u2)
+		hz.Add(hz, dd) // pi_{k+1}''/2
 		p0, p1, v = p1, v, p0
 		d0, d1, w = d1, w, d0
-		s0, s1, z = s1, z, s0
+		h0, h1, hz = h1, hz, h0
 	}
-	e.p0, e.p1, e.d0, e.d1, e.s0, e.s1, e.v, e.w, e.z = p0, p1, d0, d1, s0, s1, v, w, z
-	e.p, e.q, e.dp, e.dq, e.ddp = p1, p0, d1, d0, s1
+	e.p0, e.p1, e.d0, e.d1, e.v, e.w, e.h0, e.h1, e.hz = p0, p1, d0, d1, v, w, h0, h1, hz
+	e.p, e.q, e.dp, e.dq, e.h = p1, p0, d1, d0, h1
 }
 
 // riseCoeffs is a recurrence rounded to one precision of the rise.
@@ -136,12 +159,20 @@ func newRiseWorker(l *riseLevels) *riseWorker {
 func (rw *riseWorker) eval(prec uint) (*evalD2, *precision.Real) {
 	e, ok := rw.evals[prec]
 	if !ok {
-		e = newEvalD2(rw.levels.at(prec))
+		e = newEvalD2(rw.levels.at(prec), rw.levels.at(rw.halfPrec(prec)))
 		rw.evals[prec] = e
 		rw.xs[prec] = precision.NewReal(prec)
 	}
 	return e, rw.xs[prec]
 }
+
+// halfPrec is the precision of the h chain at level q (see evalD2).
+func (rw *riseWorker) halfPrec(q uint) uint {
+	return riseRound((int(q)+rw.noise())/2+32, q)
+}
+
+// noise is the bits the recurrence's rounding costs, about.
+func (rw *riseWorker) noise() int { return 2*bits.Len(uint(len(rw.levels.top.a))) + 8 }
 
 // riseRound returns the level for b bits: b rounded up to a multiple of
 // 64, at least 128 and at most top.
@@ -158,8 +189,7 @@ func riseRound(b int, top uint) uint {
 // It reports false when the iteration did not settle.
 func (rw *riseWorker) newton(x, wt *precision.Real, startBits int) bool {
 	top := rw.levels.top.prec
-	n := len(rw.levels.top.a)
-	noise := 2*bits.Len(uint(n)) + 8 // bits the recurrence's rounding costs
+	noise := rw.noise()
 	q := riseRound(2*startBits+noise, top)
 	var prevDelta int64
 	const maxIter = 60
@@ -189,8 +219,8 @@ func (rw *riseWorker) newton(x, wt *precision.Real, startBits int) bool {
 		}
 		// log2 of K = |pi_n'' / (2 pi_n')|, to within a couple of units.
 		eK := int64(-1 << 40)
-		if !e.ddp.IsZero() {
-			eK = e.ddp.Exponent() - e.dp.Exponent()
+		if !e.h.IsZero() {
+			eK = e.h.Exponent() - e.dp.Exponent()
 		}
 		ed, ex := d.Exponent(), x.Exponent()
 		quadratic := eK+ed <= -20 // the step is far below the scale on which pi_n' changes
@@ -202,8 +232,13 @@ func (rw *riseWorker) newton(x, wt *precision.Real, startBits int) bool {
 			if !e.dq.IsZero() && !e.q.IsZero() {
 				eW = max(eW, e.dq.Exponent()-e.q.Exponent())
 			}
-			lim := -int64(top) + 4
-			if (quadratic && trunc+2 <= lim && 2*(eW+ed)+2 <= lim) || ed <= ex-int64(top)+4 {
+			// Below the evaluation's own rounding (about 2^noise ulp of
+			// pi_n) a further step can only move the node by noise.
+			lim := -int64(top) + int64(noise)
+			// The correction delta pi_n'' carries the h chain's relative
+			// rounding 2^-halfPrec; it must stay below lim relative to pi_n'.
+			corr := eK + 1 + ed - int64(rw.halfPrec(q))
+			if (quadratic && trunc+2 <= lim && 2*(eW+ed)+2 <= lim && corr+2 <= lim) || ed <= ex-int64(top)+4 {
 				return rw.weight(wt, e, d)
 			}
 			if it >= 3 && ed >= prevDelta-1 {
@@ -230,8 +265,8 @@ func (rw *riseWorker) weight(wt *precision.Real, e *evalD2, d *precision.Real) b
 	if d != nil {
 		wt.Set(e.dq)
 		f.MulSub(wt, d, f)
-		f.Neg(f) // q - q' d
-		wt.Set(e.ddp)
+		f.Neg(f)           // q - q' d
+		wt.MulPow2(e.h, 1) // pi_n''
 		g.MulSub(wt, d, g)
 		g.Neg(g) // p' - p'' d
 	}
