@@ -3,6 +3,7 @@ package design
 import (
 	"context"
 	"fmt"
+	"math"
 	"math/big"
 	"runtime"
 	"sync"
@@ -225,6 +226,11 @@ func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights 
 	if !paired {
 		t = precision.NewReal(prec)
 	}
+	fa, oka := floatCoeffs(a[:max(m-1, 0)])
+	fb, okb := floatCoeffs(b[:max(m-1, 0)])
+	if oka && okb && nodesFit(nodes) {
+		return exactnessChunkFloat(ctx, prog, a, b, fa, fb, nodes, weights, S, B, prec, paired)
+	}
 	for i := range nodes {
 		if i%16 == 0 {
 			if err := ctx.Err(); err != nil {
@@ -272,6 +278,65 @@ func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights 
 	}
 	if len(nodes) > 0 {
 		prog.Advance(1)
+	}
+	return nil
+}
+
+// exactnessChunkFloat is exactnessChunk with the derivative chain and the
+// B_j in float64 with exponents (boundchain.go), for coefficients and nodes
+// that fit a float64.
+func exactnessChunkFloat(ctx context.Context, prog Progress, a, b []*precision.Real, fa, fb []float64, nodes, weights []*big.Float, S, B []*precision.Real, prec uint, paired bool) error {
+	r := precision.NewRealSlice(7, prec)
+	x, w, p0, p1, u, v, t := r[0], r[1], r[2], r[3], r[4], r[5], r[6]
+	if paired {
+		t = x
+	}
+	m := len(S)
+	bs := make([]scaled, m)
+	var ch derivChain
+	for i := range nodes {
+		if i%16 == 0 {
+			if err := ctx.Err(); err != nil {
+				return err
+			}
+		}
+		if i > 0 {
+			prog.Advance(1)
+		}
+		x.SetBig(nodes[i])
+		w.SetBig(weights[i])
+		wm, we := w.MantExp()
+		wm = math.Abs(wm)
+		xm, xe := x.MantExp()
+		xf := xm * pow2(xe) // nodesFit: |x| < 2^250
+		ax := math.Abs(xf)
+		p0.SetInt64(0)
+		p1.SetInt64(1)
+		ch.reset()
+		for j := 0; j < m; j++ {
+			// p1 = p_j(x), ch.d1 2^E = p_j'(x): accumulate, then step.
+			if !paired || j%2 == 0 {
+				S[j].MulAdd(w, p1, S[j])
+			}
+			pf := ch.scaledP(p1)
+			bs[j].add(wm*(math.Abs(pf)+ax*math.Abs(ch.d1)), ch.E+we)
+			if j+1 == m {
+				break
+			}
+			if !paired {
+				t.Sub(x, a[j])
+			}
+			u.Mul(b[j], p0)
+			v.MulSub(t, p1, u)
+			ch.step(xf-fa[j], fb[j], pf)
+			p0, p1, v = p1, v, p0
+		}
+	}
+	if len(nodes) > 0 {
+		prog.Advance(1)
+	}
+	for j := range bs {
+		B[j].Set(bs[j].real())
 	}
 	return nil
 }
