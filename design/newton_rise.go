@@ -168,7 +168,7 @@ func (rw *riseWorker) eval(prec uint) (*evalD2, *precision.Real) {
 
 // halfPrec is the precision of the h chain at level q (see evalD2).
 func (rw *riseWorker) halfPrec(q uint) uint {
-	return riseRound((int(q)+rw.noise())/2+32, q)
+	return riseRound((int(q)+rw.noise())/2+8, q)
 }
 
 // noise is the bits the recurrence's rounding costs, about.
