@@ -3,6 +3,7 @@ package design
 import (
 	"context"
 	"fmt"
+	"math"
 	"math/big"
 	"runtime"
 	"sync"
@@ -83,6 +84,7 @@ func checkInBasis(ctx context.Context, alpha, beta, integrals, slack []*big.Floa
 		a[k].SetBig(alpha[k])
 		b[k].SetBig(beta[k])
 	}
+	nodes, weights, paired := pairUp(alpha[:maxDeg], nodes, weights)
 	n := len(nodes)
 	workers := runtime.GOMAXPROCS(0)
 	if n < 4*workers {
@@ -94,12 +96,16 @@ func checkInBasis(ctx context.Context, alpha, beta, integrals, slack []*big.Floa
 	errs := make([]error, workers)
 	for wk := 0; wk < workers; wk++ {
 		sums[wk] = precision.NewRealSlice(m, prec)
-		bounds[wk] = precision.NewRealSlice(m, prec)
+		bounds[wk] = precision.NewRealSlice(m, boundPrec)
 		lo, hi := wk*n/workers, (wk+1)*n/workers
 		wg.Add(1)
 		go func(wk, lo, hi int) {
 			defer wg.Done()
-			errs[wk] = exactnessChunk(ctx, a, b, nodes[lo:hi], weights[lo:hi], sums[wk], bounds[wk], prec)
+			if paired && maxDeg >= 2 {
+				errs[wk] = squaresChunk(ctx, b, nodes[lo:hi], weights[lo:hi], sums[wk], bounds[wk], prec)
+				return
+			}
+			errs[wk] = exactnessChunk(ctx, a, b, nodes[lo:hi], weights[lo:hi], sums[wk], bounds[wk], prec, paired)
 		}(wk, lo, hi)
 	}
 	wg.Wait()
@@ -110,14 +116,17 @@ func checkInBasis(ctx context.Context, alpha, beta, integrals, slack []*big.Floa
 	}
 	// Fixed chunking and a fixed order of the final sums keep the result
 	// independent of scheduling.
-	S, B := sums[0], bounds[0]
+	integral := precision.NewReal(prec)
+	S, B := sums[0], precision.NewRealSlice(m, prec)
+	for j := 0; j < m; j++ {
+		B[j].Set(bounds[0][j])
+	}
 	for wk := 1; wk < workers; wk++ {
 		for j := 0; j < m; j++ {
 			S[j].Add(S[j], sums[wk][j])
-			B[j].Add(B[j], bounds[wk][j])
+			B[j].Add(B[j], integral.Set(bounds[wk][j]))
 		}
 	}
-	integral := precision.NewReal(prec)
 	for j := 0; j < min(m, len(integrals)); j++ {
 		S[j].Sub(S[j], integral.SetBig(integrals[j]))
 	}
@@ -148,16 +157,80 @@ func checkInBasis(ctx context.Context, alpha, beta, integrals, slack []*big.Floa
 	return res, nil
 }
 
+// boundPrec is the precision of the right-hand sides B_j of the exactness
+// test and of the derivatives they need. B_j is the scale the tolerance is
+// measured in, not a quantity the test decides on to the last bit: 64 bits
+// fix it to a relative 2^-57 or so even after 10^5 recurrence steps, far
+// inside the tolerance's own factor of ten. The sums S_j, where the
+// cancellation happens, run at the full precision.
+const boundPrec = 64
+
+// pairUp folds a rule that is symmetric about 0 for a symmetric recurrence
+// (every alpha_k exactly 0, printed nodes in pairs -x, x with equal weights)
+// onto its non-negative half: each pair becomes its positive node with
+// twice the weight, the middle node 0 of an odd rule stays as it is. Then
+// p_j is even or odd, a pair adds 2 w p_j(x) for even j and exactly 0 for
+// odd j, and 2 w (|p_j(x)| + |x p_j'(x)|) to B_j, so the test over the half
+// is the test over the whole rule with half the work. Otherwise it returns
+// the rule unchanged and false.
+func pairUp(alpha, nodes, weights []*big.Float) ([]*big.Float, []*big.Float, bool) {
+	n := len(nodes)
+	for _, a := range alpha {
+		if a.Sign() != 0 {
+			return nodes, weights, false
+		}
+	}
+	neg := new(big.Float)
+	for i := 0; i < n/2; i++ {
+		j := n - 1 - i
+		if nodes[j].Sign() <= 0 || neg.Neg(nodes[j]).Cmp(nodes[i]) != 0 || weights[i].Cmp(weights[j]) != 0 {
+			return nodes, weights, false
+		}
+	}
+	if n%2 == 1 && nodes[n/2].Sign() != 0 {
+		return nodes, weights, false
+	}
+	hn := make([]*big.Float, 0, (n+1)/2)
+	hw := make([]*big.Float, 0, (n+1)/2)
+	for i := n / 2; i < n; i++ {
+		hn = append(hn, nodes[i])
+		w := weights[i]
+		if i != n-1-i {
+			w = new(big.Float).SetPrec(w.Prec()+1).SetMantExp(w, 1)
+		}
+		hw = append(hw, w)
+	}
+	return hn, hw, true
+}
+
 // exactnessChunk adds, for its nodes, w_i p_j(x_i) to S[j] and
 // |w_i| (|p_j(x_i)| + |x_i p_j'(x_i)|) to B[j], j = 0..len(S)-1, with p_j
-// the monic orthogonal polynomials run by the forward recurrence.
-func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights []*big.Float, S, B []*precision.Real, prec uint) error {
+// the monic orthogonal polynomials run by the forward recurrence: p_j at
+// prec bits, p_j' and B at boundPrec bits. With paired (see pairUp) the odd
+// j get no sum: their pairs cancel exactly.
+func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights []*big.Float, S, B []*precision.Real, prec uint, paired bool) error {
 	prog := progressOf(ctx)
 	prog.Grow(int64(len(nodes)))
-	r := precision.NewRealSlice(12, prec)
-	x, w, aw, ax := r[0], r[1], r[2], r[3]
-	p0, p1, d0, d1, t, u, v, z := r[4], r[5], r[6], r[7], r[8], r[9], r[10], r[11]
+	r := precision.NewRealSlice(6, prec)
+	x, w, p0, p1, u, v := r[0], r[1], r[2], r[3], r[4], r[5]
 	m := len(S)
+	lo := precision.NewRealSlice(9, boundPrec)
+	ax, aw, d0, d1, lp, lu, lv, lt, lx := lo[0], lo[1], lo[2], lo[3], lo[4], lo[5], lo[6], lo[7], lo[8]
+	la := precision.NewRealSlice(m, boundPrec)
+	lb := precision.NewRealSlice(m, boundPrec)
+	for j := 0; j+1 < m; j++ {
+		la[j].Set(a[j])
+		lb[j].Set(b[j])
+	}
+	t := x
+	if !paired {
+		t = precision.NewReal(prec)
+	}
+	fa, oka := floatCoeffs(a[:max(m-1, 0)])
+	fb, okb := floatCoeffs(b[:max(m-1, 0)])
+	if oka && okb && nodesFit(nodes) {
+		return exactnessChunkFloat(ctx, prog, a, b, fa, fb, nodes, weights, S, B, prec, paired)
+	}
 	for i := range nodes {
 		if i%16 == 0 {
 			if err := ctx.Err(); err != nil {
@@ -169,35 +242,101 @@ func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights 
 		}
 		x.SetBig(nodes[i])
 		w.SetBig(weights[i])
-		aw.Abs(w)
-		ax.Abs(x)
+		aw.Abs(lu.Set(w))
+		ax.Abs(lu.Set(x))
+		lx.Set(x)
 		p0.SetInt64(0)
 		p1.SetInt64(1)
 		d0.SetInt64(0)
 		d1.SetInt64(0)
 		for j := 0; j < m; j++ {
 			// p1 = p_j(x), d1 = p_j'(x): accumulate, then step to j+1.
-			S[j].MulAdd(w, p1, S[j])
-			u.Mul(ax, d1)
-			u.Abs(u)
-			v.Abs(p1)
-			u.Add(u, v)
-			B[j].MulAdd(aw, u, B[j])
+			if !paired || j%2 == 0 {
+				S[j].MulAdd(w, p1, S[j])
+			}
+			lp.Set(p1)
+			lu.Mul(ax, d1)
+			lu.Abs(lu)
+			lv.Abs(lp)
+			lu.Add(lu, lv)
+			B[j].MulAdd(aw, lu, B[j])
 			if j+1 == m {
 				break
 			}
-			t.Sub(x, a[j])
+			if !paired {
+				t.Sub(x, a[j])
+			}
 			u.Mul(b[j], p0)
 			v.MulSub(t, p1, u)
-			u.Mul(b[j], d0)
-			z.MulSub(t, d1, u)
-			z.Add(z, p1)
+			lt.Sub(lx, la[j])
+			lu.Mul(lb[j], d0)
+			lv.MulSub(lt, d1, lu)
+			lv.Add(lv, lp)
 			p0, p1, v = p1, v, p0
-			d0, d1, z = d1, z, d0
+			d0, d1, lv = d1, lv, d0
 		}
 	}
 	if len(nodes) > 0 {
 		prog.Advance(1)
+	}
+	return nil
+}
+
+// exactnessChunkFloat is exactnessChunk with the derivative chain and the
+// B_j in float64 with exponents (boundchain.go), for coefficients and nodes
+// that fit a float64.
+func exactnessChunkFloat(ctx context.Context, prog Progress, a, b []*precision.Real, fa, fb []float64, nodes, weights []*big.Float, S, B []*precision.Real, prec uint, paired bool) error {
+	r := precision.NewRealSlice(7, prec)
+	x, w, p0, p1, u, v, t := r[0], r[1], r[2], r[3], r[4], r[5], r[6]
+	if paired {
+		t = x
+	}
+	m := len(S)
+	bs := make([]scaled, m)
+	var ch derivChain
+	for i := range nodes {
+		if i%16 == 0 {
+			if err := ctx.Err(); err != nil {
+				return err
+			}
+		}
+		if i > 0 {
+			prog.Advance(1)
+		}
+		x.SetBig(nodes[i])
+		w.SetBig(weights[i])
+		wm, we := w.MantExp()
+		wm = math.Abs(wm)
+		xm, xe := x.MantExp()
+		xf := xm * pow2(xe) // nodesFit: |x| < 2^250
+		ax := math.Abs(xf)
+		p0.SetInt64(0)
+		p1.SetInt64(1)
+		ch.reset()
+		for j := 0; j < m; j++ {
+			// p1 = p_j(x), ch.d1 2^E = p_j'(x): accumulate, then step.
+			if !paired || j%2 == 0 {
+				S[j].MulAdd(w, p1, S[j])
+			}
+			pf := ch.scaledP(p1)
+			bs[j].add(wm*(math.Abs(pf)+ax*math.Abs(ch.d1)), ch.E+we)
+			if j+1 == m {
+				break
+			}
+			if !paired {
+				t.Sub(x, a[j])
+			}
+			u.Mul(b[j], p0)
+			v.MulSub(t, p1, u)
+			ch.step(xf-fa[j], fb[j], pf)
+			p0, p1, v = p1, v, p0
+		}
+	}
+	if len(nodes) > 0 {
+		prog.Advance(1)
+	}
+	for j := range bs {
+		B[j].Set(bs[j].real())
 	}
 	return nil
 }

@@ -61,17 +61,11 @@ func (s FamilySource) Recurrence(n int, prec uint) (*Recurrence, error) {
 		mass = precision.Sqrt(precision.Pi(guard))
 	default:
 		a, b := f.JacobiExponents()
-		jacobiPairs(a, b, al, be)
 		mass = jacobiMass(a, b, guard)
 		lo, hi := f.Interval.Lo.Value, f.Interval.Hi.Value
-		c := new(big.Rat).Quo(new(big.Rat).Add(lo, hi), big.NewRat(2, 1))
 		h := new(big.Rat).Quo(new(big.Rat).Sub(hi, lo), big.NewRat(2, 1))
-		h2 := new(big.Rat).Mul(h, h)
-		for k := 0; k < n; k++ {
-			al[k].Add(c, al[k].Mul(h, al[k]))
-			be[k].Mul(h2, be[k])
-		}
 		mass.Mul(mass, new(big.Float).SetPrec(guard).SetRat(h))
+		return jacobiRecurrence(a, b, lo, hi, mass, n, prec), nil
 	}
 	r := &Recurrence{Alpha: make([]*big.Float, n), Beta: make([]*big.Float, n)}
 	for k := 0; k < n; k++ {

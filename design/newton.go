@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"math/big"
+	"math/bits"
 	"runtime"
 	"sync"
 	"sync/atomic"
@@ -137,10 +138,14 @@ func gaussStage(ctx context.Context, rec *Recurrence, n int, prec uint, start []
 	xs := precision.NewRealSlice(n, prec)
 	ws := precision.NewRealSlice(n, prec)
 	haveStart := false
+	startBits := 40 // a float64 eigenvalue, about; riseNewton finds out
 	if start != nil {
+		startBits = int(prec)
 		for i := range xs {
 			xs[i].SetBig(start[i])
+			startBits = min(startBits, int(start[i].Prec()))
 		}
+		startBits -= 2*bits.Len(uint(n)) + 8
 		haveStart = true
 	} else if f, ok := float64Start(rec, n); ok {
 		for i := range xs {
@@ -149,7 +154,7 @@ func gaussStage(ctx context.Context, rec *Recurrence, n int, prec uint, start []
 		haveStart = true
 	}
 	if haveStart && !forceSturm {
-		err := refineAll(ctx, a, b, norm, xs, ws, prec, symmetric)
+		err := refineAll(ctx, a, b, norm, xs, ws, prec, symmetric, startBits)
 		if err != nil && !errors.Is(err, errNoConvergence) {
 			return nil, err
 		}
@@ -180,8 +185,11 @@ func toStage(xs, ws []*precision.Real, prec uint, fallback bool) *stage {
 // number of cores. For a symmetric measure (all alpha_k = 0) only the
 // non-negative half is refined and mirrored, and for odd n the middle node
 // is exactly 0.
-func refineAll(ctx context.Context, a, b []*precision.Real, norm *precision.Real, xs, ws []*precision.Real, prec uint, symmetric bool) error {
+func refineAll(ctx context.Context, a, b []*precision.Real, norm *precision.Real, xs, ws []*precision.Real, prec uint, symmetric bool, startBits int) error {
 	n := len(xs)
+	if symmetric && n >= 4 {
+		return refineSquares(ctx, a, b, norm, xs, ws, prec, startBits)
+	}
 	first := 0
 	if symmetric {
 		first = n / 2
@@ -189,15 +197,11 @@ func refineAll(ctx context.Context, a, b []*precision.Real, norm *precision.Real
 			xs[first].SetInt64(0)
 		}
 	}
-	return parallelNodes(ctx, a, b, prec, first, n, func(e *evaluator, i int, scratch []*precision.Real) error {
-		if !e.newton(xs[i], ws[i], norm, scratch[0], scratch[1]) {
-			return errNoConvergence
-		}
+	return refineRising(ctx, a, b, norm, xs, ws, prec, symmetric, first, n, startBits, func(i int) {
 		if symmetric && i != n-1-i {
 			xs[n-1-i].Neg(xs[i])
 			ws[n-1-i].Set(ws[i])
 		}
-		return nil
 	})
 }
 

@@ -295,6 +295,9 @@ func (z *Real) Mul(x, y *Real) *Real {
 // mulLarge is mulTop with scratch space for W > 4.
 func mulLarge(z, x, y []uint64) bool {
 	w := len(z)
+	if wordsOK && w >= mulBigWords {
+		return mulViaBig(z, x, y)
+	}
 	if w > 64 {
 		return mulTop(z, x, y, make([]uint64, w+2))
 	}
