@@ -87,3 +87,21 @@ func (p *deProblem) addFunctions(a *accum, pt dePoint, c *big.Float) {
 		}
 	}
 }
+
+// EvalShared evaluates each expression of es (in one variable) at x, at
+// prec bits, as EvalBig does, computing each function call (log, exp,
+// ...) once for equal arguments across all of them: log(x) in the
+// templates x^k*log(x) of a system is formed once per point. The values
+// returned are the caller's to modify.
+func EvalShared(es []*Expr, prec uint, x *big.Float) ([]*big.Float, error) {
+	cache := make(map[string]*big.Float)
+	out := make([]*big.Float, len(es))
+	for k, e := range es {
+		v, err := e.evalBig(prec, cache, []*big.Float{x})
+		if err != nil {
+			return nil, err
+		}
+		out[k] = new(big.Float).Set(v) // never the cached value itself
+	}
+	return out, nil
+}

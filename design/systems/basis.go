@@ -56,15 +56,19 @@ func newBasis(fs []*moments.Expr, names []string, x, c []*big.Float, prec uint) 
 		sc[l] = new(big.Float).SetPrec(prec).Sqrt(new(big.Float).SetPrec(prec).Set(c[l]))
 	}
 	norms := make([]float64, m)
-	for k, f := range fs {
+	for k := range fs {
 		a[k] = make([]*big.Float, L)
-		for l := range x {
-			v, err := f.EvalBig(prec, x[l])
-			if err != nil {
-				return nil, fmt.Errorf("function %s: %v", names[k], err)
-			}
-			a[k][l] = v.Mul(v, sc[l])
+	}
+	for l := range x {
+		v, err := moments.EvalShared(fs, prec, x[l])
+		if err != nil {
+			return nil, err
 		}
+		for k := range fs {
+			a[k][l] = v[k].Mul(v[k], sc[l])
+		}
+	}
+	for k := range fs {
 		n := dot(a[k], a[k], prec)
 		norms[k], _ = n.Sqrt(n).Float64()
 	}
@@ -137,11 +141,8 @@ func (b *basis) solveRT(v []*big.Float, prec uint) {
 // its truncation error is O(h^2) and its rounding O(2^-(prec+32)) relative,
 // far below what the Newton steps and the verification tolerance need.
 func evalF(fs []*moments.Expr, x *big.Float, prec uint, deriv bool) (f, df []*big.Float, err error) {
-	f = make([]*big.Float, len(fs))
-	for k, e := range fs {
-		if f[k], err = e.EvalBig(prec, x); err != nil {
-			return nil, nil, fmt.Errorf("function %s: %v at x = %s", e.String(), err, x.Text('g', 10))
-		}
+	if f, err = moments.EvalShared(fs, prec, x); err != nil {
+		return nil, nil, fmt.Errorf("%v at x = %s", err, x.Text('g', 10))
 	}
 	if !deriv {
 		return f, nil, nil
@@ -155,17 +156,17 @@ func evalF(fs []*moments.Expr, x *big.Float, prec uint, deriv bool) (f, df []*bi
 	xp := new(big.Float).SetPrec(hp).Add(x, h)
 	xm := new(big.Float).SetPrec(hp).Sub(x, h)
 	h2 := new(big.Float).SetPrec(hp).Add(h, h)
+	fp, err := moments.EvalShared(fs, hp, xp)
+	if err != nil {
+		return nil, nil, fmt.Errorf("%v near x = %s", err, x.Text('g', 10))
+	}
+	fm, err := moments.EvalShared(fs, hp, xm)
+	if err != nil {
+		return nil, nil, fmt.Errorf("%v near x = %s", err, x.Text('g', 10))
+	}
 	df = make([]*big.Float, len(fs))
-	for k, e := range fs {
-		a, err := e.EvalBig(hp, xp)
-		if err != nil {
-			return nil, nil, fmt.Errorf("function %s: %v near x = %s", e.String(), err, x.Text('g', 10))
-		}
-		b, err := e.EvalBig(hp, xm)
-		if err != nil {
-			return nil, nil, fmt.Errorf("function %s: %v near x = %s", e.String(), err, x.Text('g', 10))
-		}
-		df[k] = new(big.Float).SetPrec(prec).Quo(a.Sub(a, b), h2)
+	for k := range fs {
+		df[k] = new(big.Float).SetPrec(prec).Quo(fp[k].Sub(fp[k], fm[k]), h2)
 	}
 	return f, df, nil
 }

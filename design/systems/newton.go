@@ -187,7 +187,10 @@ func cloneAt(v []*big.Float, prec uint) []*big.Float {
 
 // continuation follows the homotopy from the start rule at s = 0 to s = 1
 // with adaptive steps: a step whose Newton iteration fails (or leaves the
-// nodes' order or the interval) is halved, down to 2^-24; after a success
+// nodes' order or the interval) is halved, down to 2^-10 and at most 12
+// times in all (a path that needs more is usually ending: a node reaching
+// an end of the interval or a weight reaching zero; the fallback is
+// cheaper than following it); after a success
 // the step doubles. Intermediate points are solved to 2^-40; each starts
 // from the secant through the last two solutions when that guess is
 // itself valid. The final point is solved to prec.
@@ -199,6 +202,7 @@ func (h *homotopy) continuation(ctx context.Context, xs, ws []*big.Float, prec u
 	cur := point{0, cloneAt(xs, prec), cloneAt(ws, prec)}
 	var prev *point
 	ds := 1.0
+	fails := 0
 	for cur.s < 1 {
 		s1 := math.Min(1, cur.s+ds)
 		gx, gw := cur.xs, cur.ws
@@ -222,7 +226,7 @@ func (h *homotopy) continuation(ctx context.Context, xs, ws []*big.Float, prec u
 		}
 		if err != nil {
 			ds /= 2
-			if ds < 0x1p-24 {
+			if fails++; ds < 0x1p-10 || fails > 12 {
 				return nil, nil, errNoConvergence
 			}
 			continue
