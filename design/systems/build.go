@@ -148,6 +148,38 @@ func sums(q *basis, xs, ws []*big.Float, prec uint) ([]*big.Float, error) {
 	return out, nil
 }
 
+// sensitivity returns |J^-1 R^-T| est, the first-order bound on how far
+// the moments' errors est (componentwise, in the user's functions) move
+// the nodes and weights, J the Jacobian of the equations in u = R^-T f.
+func sensitivity(J [][]*big.Float, u *basis, est []*big.Float, prec uint) []float64 {
+	m := len(est)
+	out := make([]float64, m)
+	for j := 0; j < m; j++ {
+		ej, _ := est[j].Float64()
+		if ej == 0 {
+			continue
+		}
+		col := make([]*big.Float, m) // R^-T e_j
+		for i := range col {
+			col[i] = new(big.Float).SetPrec(prec)
+		}
+		col[j].SetInt64(1)
+		u.solveRT(col, prec)
+		cp := make([][]*big.Float, m)
+		for i := range cp {
+			cp[i] = cloneAt(J[i], prec)
+		}
+		if !solve(cp, col, prec) {
+			return nil
+		}
+		for i := range col {
+			v, _ := col[i].Float64()
+			out[i] += math.Abs(v) * ej
+		}
+	}
+	return out
+}
+
 // boundRT returns an upper bound on |R^-T| e: the forward solve with the
 // comparison matrix (|r_jj| on the diagonal, -|r_ij| off it), whose
 // inverse dominates |R^-1| entrywise.
@@ -205,8 +237,9 @@ func GeneralizedGauss(ctx context.Context, pr Problem, req design.Request) (*Res
 	d := max(D, 17)
 	md := d + 10
 	var lastErr error
+	var start [2][]*big.Float
 	for attempt := 0; attempt < 3; attempt++ {
-		res, extra, err := gaussAttempt(ctx, pr, n, D, d, md)
+		res, extra, err := gaussAttempt(ctx, pr, n, D, d, md, start, &start)
 		if err == nil {
 			return res, nil
 		}
@@ -224,7 +257,11 @@ func GeneralizedGauss(ctx context.Context, pr Problem, req design.Request) (*Res
 
 // gaussAttempt is one computation with moments to md digits. extra > 0
 // says that more moment digits (about extra) would let it succeed.
-func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int) (*Result, int, error) {
+//
+// start, when set, is the rule of an earlier attempt, refined by Newton
+// instead of a new continuation; last receives this attempt's rule when
+// only the moments' digits fell short.
+func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int, start [2][]*big.Float, last *[2][]*big.Float) (*Result, int, error) {
 	m := 2 * n
 	I, est, xd, cd, err := pr.momentsAt(ctx, md)
 	if err != nil {
@@ -267,8 +304,13 @@ func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int) (*Result, in
 	h.bu = cloneAt(I, p2)
 	u.solveRT(h.bu, p2)
 	method := "Newton continuation (Ma, Rokhlin, Wandzura 1996) from " + startLabel
-	x1, w1, err := h.continuation(ctx, x0, w0, p)
-	if errors.Is(err, errNoConvergence) {
+	var x1, w1 []*big.Float
+	if start[0] != nil {
+		x1, w1, err = h.newton(ctx, 1, start[0], start[1], p, 0, 40)
+	} else {
+		x1, w1, err = h.continuation(ctx, x0, w0, p)
+	}
+	if errors.Is(err, errNoConvergence) && start[0] == nil {
 		method = "an oversampled positive rule reduced by point elimination and Gauss-Newton (Bremer, Gimbutas, Rokhlin 2010), after the continuation from " + startLabel + " failed"
 		var fx, fw []*big.Float
 		if fx, fw, err = h.fallback(ctx, xd, n, uint(math.Ceil(u.condBits))+128); err == nil {
@@ -290,7 +332,7 @@ func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int) (*Result, in
 	if err != nil {
 		return nil, 0, err
 	}
-	dz := inverseAbsTimes(J, u.boundRT(est), 128)
+	dz := sensitivity(J, u, est, 192)
 	if dz == nil {
 		return nil, 0, fmt.Errorf("the moment equations are singular at the rule found")
 	}
@@ -304,6 +346,7 @@ func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int) (*Result, in
 		}
 	}
 	if extra > 0 {
+		last[0], last[1] = x2, w2
 		return nil, extra, fmt.Errorf("the moments' error bounds leave fewer than %d digits of the rule", d)
 	}
 	texts := [2][]string{make([]string, n), make([]string, n)}

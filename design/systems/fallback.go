@@ -72,7 +72,7 @@ func (h *homotopy) fallback(ctx context.Context, cand []*big.Float, n int, evalP
 		return nil, nil, errNoConvergence
 	}
 	var err error
-	if px, pw, err = gaussNewton(ctx, h, px, pw, b, ev); err != nil {
+	if px, pw, err = gaussNewton(ctx, h, px, pw, b, n, ev); err != nil {
 		if debugCont {
 			println("gn first failed")
 		}
@@ -97,7 +97,7 @@ func (h *homotopy) fallback(ctx context.Context, cand []*big.Float, n int, evalP
 		}
 		sort.Slice(order, func(a, b int) bool { return sig[order[a]] < sig[order[b]] })
 		done := false
-		for _, drop := range order[:min(len(order), 4)] {
+		for _, drop := range order[:min(len(order), 8)] {
 			qx := append(append([]float64(nil), px[:drop]...), px[drop+1:]...)
 			qw := append(append([]float64(nil), pw[:drop]...), pw[drop+1:]...)
 			// The dropped weight goes to the nearest neighbour, so the
@@ -107,7 +107,7 @@ func (h *homotopy) fallback(ctx context.Context, cand []*big.Float, n int, evalP
 				near--
 			}
 			qw[near] += pw[drop]
-			rx, rw, err := gaussNewton(ctx, h, qx, qw, b, ev)
+			rx, rw, err := gaussNewton(ctx, h, qx, qw, b, n, ev)
 			if errors.Is(err, errNoConvergence) {
 				continue
 			}
@@ -169,10 +169,12 @@ func (h *homotopy) inside(x float64) bool {
 }
 
 // gaussNewton drives sum_i w_i u(x_i) - b to zero (relative 1e-13) by
-// minimum-norm Gauss-Newton steps, halved while they would unorder the
-// nodes, leave the interval or make a weight non-positive.
-func gaussNewton(ctx context.Context, h *homotopy, x, w, b []float64, ev func(float64, bool) ([]float64, []float64, error)) ([]float64, []float64, error) {
+// minimum-norm Gauss-Newton steps, shortened so that no weight loses more
+// than half of itself and no gap more than half; a point whose weight
+// blocks the step is dropped while more than minPoints remain.
+func gaussNewton(ctx context.Context, h *homotopy, x, w, b []float64, minPoints int, ev func(float64, bool) ([]float64, []float64, error)) ([]float64, []float64, error) {
 	n, m := len(x), len(b)
+	x, w = append([]float64(nil), x...), append([]float64(nil), w...)
 	bn := norm(b)
 	for it := 0; it < 80; it++ {
 		if err := ctx.Err(); err != nil {
@@ -243,7 +245,7 @@ func gaussNewton(ctx context.Context, h *homotopy, x, w, b []float64, ev func(fl
 		}
 		// Fraction to the boundary: no weight loses more than half of
 		// itself, no gap (between nodes, or to a finite end) more than half.
-		t := 1.0
+		t, block := 1.0, -1
 		lo, hi := math.Inf(-1), math.Inf(1)
 		if h.lo != nil {
 			lo, _ = h.lo.Float64()
@@ -252,19 +254,27 @@ func gaussNewton(ctx context.Context, h *homotopy, x, w, b []float64, ev func(fl
 			hi, _ = h.hi.Float64()
 		}
 		for i := 0; i < n; i++ {
-			if d[n+i] < 0 {
-				t = math.Min(t, 0.5*w[i]/-d[n+i])
+			if d[n+i] < 0 && 0.5*w[i]/-d[n+i] < t {
+				t, block = 0.5*w[i]/-d[n+i], i
 			}
 			left, dl := lo, 0.0
 			if i > 0 {
 				left, dl = x[i-1], d[i-1]
 			}
-			if rel := d[i] - dl; rel < 0 && !math.IsInf(left, -1) {
-				t = math.Min(t, 0.5*(x[i]-left)/-rel)
+			if rel := d[i] - dl; rel < 0 && !math.IsInf(left, -1) && 0.5*(x[i]-left)/-rel < t {
+				t, block = 0.5*(x[i]-left)/-rel, -1
 			}
-			if i == n-1 && d[i] > 0 && !math.IsInf(hi, 1) {
-				t = math.Min(t, 0.5*(hi-x[i])/d[i])
+			if i == n-1 && d[i] > 0 && !math.IsInf(hi, 1) && 0.5*(hi-x[i])/d[i] < t {
+				t, block = 0.5*(hi-x[i])/d[i], -1
 			}
+		}
+		if block >= 0 && t < 0.1 && n > minPoints {
+			// The step wants this weight gone: the point eliminates
+			// itself (Bremer, Gimbutas and Rokhlin's reduction, unforced).
+			x = append(x[:block:block], x[block+1:]...)
+			w = append(w[:block:block], w[block+1:]...)
+			n--
+			continue
 		}
 		if t < 1e-12 {
 			if debugCont {
