@@ -18,7 +18,8 @@ type buildOptions struct {
 	points, kind, digits, format string
 	fixed, nodesFile             string
 	output                       string
-	engine, verify               string // the fast path (build_fast.go)
+	engine, verify               string        // the fast path (build_fast.go)
+	functions                    functionFlags // build_functions.go
 }
 
 func newBuildCommand() *cobra.Command {
@@ -72,6 +73,7 @@ points = 12, interval = "0,1", ...); flags given beside it override it.`,
 		},
 	}
 	addMeasureFlags(cmd, &o.measure)
+	addFunctionFlags(cmd, &o.functions)
 	f := cmd.Flags()
 	f.StringVar(&o.points, "points", "", fmt.Sprintf("number of nodes N, 1 to %d (required; above %d only by the fast float64 path)", design.FastMaxPoints, design.MaxPoints))
 	f.StringVar(&o.kind, "kind", "gauss", kindHelp)
@@ -92,6 +94,9 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 	format, err := parseFormat(o.format)
 	if err != nil {
 		return err
+	}
+	if o.functions.given() {
+		return runBuildFunctions(ctx, o, format, cmd.OutOrStdout())
 	}
 	o.points = o.pointsForNodes()
 	if o.points == "" {

@@ -252,4 +252,5 @@ func secant(s0 float64, x0, w0 []*big.Float, s1 float64, x1, w1 []*big.Float, s 
 	}
 	return ext(x0, x1), ext(w0, w1)
 }
+
 var debugCont = false

@@ -10,7 +10,10 @@ import (
 )
 
 func TestQuick(t *testing.T) {
-	for _, c := range []struct{ list, iv, w string; d int }{
+	for _, c := range []struct {
+		list, iv, w string
+		d           int
+	}{
 		{"x^k; k=0..5", "0,1", "1", 20},
 		{"x^(k/2); k=0..5", "0,1", "1", 20},
 		{"x^k, x^k*log(x); k=0..3", "0,1", "1", 30},
