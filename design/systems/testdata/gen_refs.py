@@ -145,7 +145,10 @@ def log_rule(n):
         xs, ws = r
         s = s1
         ds = min(ds * 2, mp.mpf(1) / 4)
-    return newton(mp.mpf(1), n, xs, ws, mp.mpf(10) ** -85)
+    r = newton(mp.mpf(1), n, xs, ws, mp.mpf(10) ** -45)
+    assert r is not None, "final Newton failed at N = %d" % n
+    print("N", n, "done", flush=True)
+    return r
 
 
 if __name__ == "__main__":
