@@ -1,5 +1,5 @@
 #!/usr/bin/env python3
-"""Reference rules for design/systems, generated with mpmath at 90 digits.
+"""Reference rules for design/systems, generated with mpmath at 120 digits.
 
 Run: python3 gen_refs.py   (Debian python3-mpmath; writes the three .txt files
 here). Every value is printed to 40 significant digits; the tests compare
@@ -11,7 +11,7 @@ here). Every value is printed to 40 significant digits; the tests compare
 - legendre01_n6.txt: the 6-point Gauss-Legendre rule on [0,1], same method.
 - log_system.txt: the generalized Gauss rules for 1, log x, x, x log x, ...,
   x^(N-1), x^(N-1) log x on [0,1], N = 4..16, by our own Newton iteration
-  in the raw functions at 90 digits along a power-exponent homotopy:
+  in the raw functions at 120 digits along a power-exponent homotopy:
   g_2k = x^a, g_2k+1 = (x^b - x^a)/(b - a), a = k(2-s), b = a + (1-s)(k+1),
   which is the polynomial system at s = 0 and tends to x^k, x^k log x as
   s -> 1 (moments 1/(a+1) and -1/((a+1)(b+1)) in closed form). Nothing of
@@ -20,7 +20,7 @@ here). Every value is printed to 40 significant digits; the tests compare
 import time
 import mpmath as mp
 
-mp.mp.dps = 90
+mp.mp.dps = 120
 
 
 def gauss_jacobi01(n, alpha, beta):
@@ -137,7 +137,7 @@ def log_rule(n):
     s, ds = mp.mpf(0), mp.mpf(1) / 8
     while s < 1:
         s1 = min(mp.mpf(1), s + ds)
-        r = newton(s1, n, xs, ws, mp.mpf(10) ** -30)
+        r = newton(s1, n, xs, ws, mp.mpf(10) ** -20)
         if r is None:
             ds /= 2
             assert ds > mp.mpf(2) ** -30, "homotopy stalled"
