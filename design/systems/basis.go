@@ -135,24 +135,28 @@ func (b *basis) solveRT(v []*big.Float, prec uint) {
 	}
 }
 
-// evalF returns f_k(x) at prec bits, and, when deriv, f_k'(x) by a central
-// difference at 2 prec + 64 bits with step h = 2^-(prec+32) |x| (|x| = 1 at x = 0), so
-// that a log(x) near a zero end is differenced inside its domain:
-// its truncation error is O(h^2) and its rounding O(2^-(prec+32)) relative,
-// far below what the Newton steps and the verification tolerance need.
-func evalF(fs []*moments.Expr, x *big.Float, prec uint, deriv bool) (f, df []*big.Float, err error) {
+// evalF returns f_k(x) at prec bits, and, when dbits > 0, f_k'(x) to
+// about dbits relative bits by a central difference with step
+// h = 2^-(dbits/2+8) |x| (|x| = 1 at x = 0) at max(prec, 3 dbits/2 + 40)
+// bits: truncation O(h^2), rounding O(2^-bits / h). The step is relative to
+// |x| so that a log(x) near a zero end is differenced inside its domain.
+// Newton needs the derivatives only to set its steps (a relative error e
+// in them makes each step gain -log2 e bits), and the verification only
+// as a scale.
+func evalF(fs []*moments.Expr, x *big.Float, prec uint, dbits uint) (f, df []*big.Float, err error) {
 	if f, err = moments.EvalShared(fs, prec, x); err != nil {
 		return nil, nil, fmt.Errorf("%v at x = %s", err, x.Text('g', 10))
 	}
-	if !deriv {
+	if dbits == 0 {
 		return f, nil, nil
 	}
-	hp := 2*prec + 64
+	k := dbits/2 + 8
+	hp := max(prec, dbits+k+32)
 	h := new(big.Float).SetPrec(hp).Abs(x)
 	if h.Sign() == 0 {
 		h.SetInt64(1)
 	}
-	h.SetMantExp(h, -int(prec+32))
+	h.SetMantExp(h, -int(k))
 	xp := new(big.Float).SetPrec(hp).Add(x, h)
 	xm := new(big.Float).SetPrec(hp).Sub(x, h)
 	h2 := new(big.Float).SetPrec(hp).Add(h, h)
@@ -171,9 +175,15 @@ func evalF(fs []*moments.Expr, x *big.Float, prec uint, deriv bool) (f, df []*bi
 	return f, df, nil
 }
 
-// eval returns u_k(x) and, when deriv, u_k'(x), at prec bits.
+// eval returns u_k(x) at prec bits and, when deriv, u_k'(x) to about 96
+// relative bits (the derivatives of the f_k to 96 bits more than the
+// solve with R loses).
 func (b *basis) eval(x *big.Float, prec uint, deriv bool) (u, du []*big.Float, err error) {
-	u, du, err = evalF(b.fs, x, prec, deriv)
+	var dbits uint
+	if deriv {
+		dbits = uint(math.Ceil(b.condBits)) + 96
+	}
+	u, du, err = evalF(b.fs, x, prec, dbits)
 	if err != nil {
 		return nil, nil, err
 	}

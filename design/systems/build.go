@@ -148,6 +148,25 @@ func sums(q *basis, xs, ws []*big.Float, prec uint) ([]*big.Float, error) {
 	return out, nil
 }
 
+// thin keeps about every s-th point of a discretisation (ascending) with
+// its mass times s, so that at most about limit remain: a coarser
+// double-exponential rule of the same measure, still a positive inner
+// product that resolves the functions, at a fraction of the cost of the
+// Gram-Schmidt sweeps over it.
+func thin(x, c []*big.Float, limit int) ([]*big.Float, []*big.Float) {
+	s := len(x) / limit
+	if s < 2 {
+		return x, c
+	}
+	var tx, tc []*big.Float
+	f := new(big.Float).SetInt64(int64(s))
+	for i := s / 2; i < len(x); i += s {
+		tx = append(tx, x[i])
+		tc = append(tc, new(big.Float).SetPrec(c[i].Prec()).Mul(c[i], f))
+	}
+	return tx, tc
+}
+
 // sensitivity returns |J^-1 R^-T| est, the first-order bound on how far
 // the moments' errors est (componentwise, in the user's functions) move
 // the nodes and weights, J the Jacobian of the equations in u = R^-T f.
@@ -273,6 +292,10 @@ func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int, start [2][]*
 	}
 	wp := precision.WorkingPrec(md, m)
 	gs := 2*wp + 128
+	if debugCont {
+		println("attempt md", md, "L", len(xd))
+	}
+	xd, cd = thin(xd, cd, 16*m)
 	u, err := newBasis(pr.exprs(), pr.names(), xd, cd, gs)
 	if err != nil {
 		return nil, 0, err

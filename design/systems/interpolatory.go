@@ -57,6 +57,7 @@ func interpAttempt(ctx context.Context, pr Problem, nodes []*big.Rat, D, d, md i
 		return nil, 0, err
 	}
 	wp := precision.WorkingPrec(md, m)
+	xd, cd = thin(xd, cd, 16*m)
 	u, err := newBasis(pr.exprs(), pr.names(), xd, cd, 2*wp+128)
 	if err != nil {
 		return nil, 0, err
@@ -70,7 +71,7 @@ func interpAttempt(ctx context.Context, pr Problem, nodes []*big.Rat, D, d, md i
 	}
 	for i, z := range nodes {
 		x := new(big.Float).SetPrec(p2).SetRat(z)
-		f, _, err := evalF(pr.exprs(), x, p2, false)
+		f, _, err := evalF(pr.exprs(), x, p2, 0)
 		if err != nil {
 			return nil, 0, fmt.Errorf("node %s: %v", moments.RatString(z), err)
 		}

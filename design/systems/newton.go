@@ -187,7 +187,7 @@ func cloneAt(v []*big.Float, prec uint) []*big.Float {
 
 // continuation follows the homotopy from the start rule at s = 0 to s = 1
 // with adaptive steps: a step whose Newton iteration fails (or leaves the
-// nodes' order or the interval) is halved, down to 2^-10 and at most 12
+// nodes' order or the interval) is halved, down to 2^-5 and at most 6
 // times in all (a path that needs more is usually ending: a node reaching
 // an end of the interval or a weight reaching zero; the fallback is
 // cheaper than following it); after a success
@@ -226,7 +226,7 @@ func (h *homotopy) continuation(ctx context.Context, xs, ws []*big.Float, prec u
 		}
 		if err != nil {
 			ds /= 2
-			if fails++; ds < 0x1p-10 || fails > 12 {
+			if fails++; ds < 0x1p-5 || fails > 6 {
 				return nil, nil, errNoConvergence
 			}
 			continue

@@ -207,3 +207,48 @@ func FuzzParseFunctionsReader(f *testing.F) {
 		_, _ = ParseFunctionsReader(strings.NewReader(s), "fuzz.txt")
 	})
 }
+
+// Wider systems: exponentials with rates spread from 1 to 1e4, a weighted
+// log system, and a kink named with breaks. Each rule is verified against
+// every function inside GeneralizedGauss; here we check that it was built
+// with positive weights and nodes inside.
+func TestWiderSystems(t *testing.T) {
+	if testing.Short() {
+		t.Skip("several seconds each")
+	}
+	for _, c := range []struct {
+		list, iv, weight, breaks string
+	}{
+		{"exp(-10^(4*k/9)*x); k=0..9", "0,inf", "1", ""},
+		{"x^k, x^k*log(x); k=0..3", "0,1", "x^-0.5", ""},
+		{"x^k, x^k*abs(x-1/3); k=0..2", "0,1", "1", "1/3"},
+	} {
+		fs, err := ParseFunctions(c.list)
+		if err != nil {
+			t.Fatal(err)
+		}
+		in, _ := moments.ParseInterval(c.iv)
+		var br []*big.Rat
+		if c.breaks != "" {
+			r, _ := precision.ParseExact(c.breaks)
+			br = append(br, r)
+		}
+		w, err := moments.NewWeight(c.weight, in, br)
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := GeneralizedGauss(context.Background(), Problem{Functions: fs, Weight: w}, design.Request{Digits: 20})
+		if err != nil {
+			t.Errorf("%s: %v", c.list, err)
+			continue
+		}
+		if r.ExactFor != len(fs) || r.Rule.Points() != len(fs)/2 {
+			t.Errorf("%s: exact for %d of %d, %d points", c.list, r.ExactFor, len(fs), r.Rule.Points())
+		}
+		for i, s := range r.Rule.Weights {
+			if strings.HasPrefix(s, "-") {
+				t.Errorf("%s: weight %d is %s", c.list, i+1, s)
+			}
+		}
+	}
+}

@@ -70,7 +70,7 @@ func checkPrinted(fs []Function, nodes, weights []string, I, est []*big.Float, d
 	}
 	t := new(big.Float).SetPrec(prec)
 	for i := range xs {
-		f, df, err := evalF(exprs, xs[i], prec, true)
+		f, df, err := evalF(exprs, xs[i], prec, 64)
 		if err != nil {
 			return nil, err
 		}

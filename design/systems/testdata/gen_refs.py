@@ -12,7 +12,8 @@ here). Every value is printed to 40 significant digits; the tests compare
 - log_system.txt: the generalized Gauss rules for 1, log x, x, x log x, ...,
   x^(N-1), x^(N-1) log x on [0,1], N = 4..16, by our own Newton iteration
   in the raw functions at 120 digits along a power-exponent homotopy:
-  g_2k = x^a, g_2k+1 = (x^b - x^a)/(b - a), a = k(2-s), b = a + (1-s)(k+1),
+  g_2k = x^a, g_2k+1 = (x^b - x^a)/(b - a), a = k(2-s), b = a + 1 - s
+  (exponents distinct and ordered for s < 1),
   which is the polynomial system at s = 0 and tends to x^k, x^k log x as
   s -> 1 (moments 1/(a+1) and -1/((a+1)(b+1)) in closed form). Nothing of
   the Go code is used.
@@ -78,7 +79,7 @@ def funcs(s, n, x):
             df += [k * x ** (k - 1) if k else mp.mpf(0), (k * lx + 1) * x ** (k - 1)]
             continue
         a = k * (2 - s)
-        d = (1 - s) * (k + 1)
+        d = 1 - s
         b = a + d
         f += [x ** a, (x ** b - x ** a) / d]
         da = a * x ** (a - 1) if a != 0 else mp.mpf(0)
@@ -93,7 +94,7 @@ def moments(s, n):
             out += [mp.mpf(1) / (k + 1), -mp.mpf(1) / (k + 1) ** 2]
             continue
         a = k * (2 - s)
-        b = a + (1 - s) * (k + 1)
+        b = a + (1 - s)
         out += [1 / (a + 1), -1 / ((a + 1) * (b + 1))]
     return out
 
