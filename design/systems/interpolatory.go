@@ -100,10 +100,19 @@ func interpAttempt(ctx context.Context, pr Problem, nodes []*big.Rat, D, d, md i
 		return nil, 0, fmt.Errorf("the functions do not determine weights on these nodes: the matrix f_j(x_i) is singular")
 	}
 	dz := sensitivity(U, u, est, 192)
+	// A weight below 10^-(d+2) of the largest is printed as 0: the nodes
+	// of a rule exact beyond the system (Boole's nodes among them) make
+	// some weights vanish, which no number of digits can show otherwise.
+	wmax := 0.0
+	for _, v := range w2 {
+		a, _ := new(big.Float).Abs(v).Float64()
+		wmax = math.Max(wmax, a)
+	}
+	floor := wmax * math.Pow(10, -float64(d+2))
 	extra := 0
 	for i, v := range w2 {
 		a, _ := new(big.Float).Abs(v).Float64()
-		if lim := a * math.Pow(10, -float64(d+1)); dz[i] > lim {
+		if lim := math.Max(a, floor) * math.Pow(10, -float64(d+1)); dz[i] > lim {
 			extra = max(extra, int(math.Ceil(math.Log10(dz[i]/lim)))+3)
 		}
 	}
@@ -115,6 +124,12 @@ func interpAttempt(ctx context.Context, pr Problem, nodes []*big.Rat, D, d, md i
 	for i := range nodes {
 		xv[i] = new(big.Float).SetPrec(p2).SetRat(nodes[i])
 		texts[0][i] = exactNode(nodes[i], xv[i], D)
+		a1, _ := new(big.Float).Abs(w1[i]).Float64()
+		a2, _ := new(big.Float).Abs(w2[i]).Float64()
+		if a1 < floor && a2 < floor {
+			texts[1][i] = "0"
+			continue
+		}
 		var ok bool
 		if texts[1][i], ok = design.ConfirmPrinted(w1[i], w2[i], D, p2); !ok {
 			return nil, 0, fmt.Errorf("the weights computed at %d and %d bits disagree in a printed digit of weight %d", p, p2, i+1)
