@@ -291,14 +291,20 @@ func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int, start [2][]*
 		return nil, 0, err
 	}
 	wp := precision.WorkingPrec(md, m)
-	gs := 2*wp + 128
-	if debugCont {
-		println("attempt md", md, "L", len(xd))
-	}
 	xd, cd = thin(xd, cd, 16*m)
+	// Gram-Schmidt at wp + 192 bits serves systems that lose up to about
+	// 128 bits to their conditioning; one that loses more is
+	// orthonormalised again with room for it.
+	gs := wp + 192
 	u, err := newBasis(pr.exprs(), pr.names(), xd, cd, gs)
 	if err != nil {
 		return nil, 0, err
+	}
+	if _, p2 := precisions(d, m, u.condBits); p2+64 > gs {
+		gs = p2 + 128
+		if u, err = newBasis(pr.exprs(), pr.names(), xd, cd, gs); err != nil {
+			return nil, 0, err
+		}
 	}
 	qnames := make([]string, len(qfs))
 	for k := range qfs {
