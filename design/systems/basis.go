@@ -28,6 +28,29 @@ type basis struct {
 	// basis; flip[k] negates u_k (orient).
 	cols [][]*big.Float
 	flip []bool
+	// rAt caches r rounded to the precisions the solves run at: a product
+	// costs in the longer operand, and r is kept at the Gram-Schmidt
+	// precision. Not safe for concurrent use.
+	rAt map[uint][][]*big.Float
+}
+
+// rounded returns r rounded to prec bits (r itself at or above b.prec).
+func (b *basis) rounded(prec uint) [][]*big.Float {
+	if prec >= b.prec {
+		return b.r
+	}
+	if r, ok := b.rAt[prec]; ok {
+		return r
+	}
+	r := make([][]*big.Float, len(b.r))
+	for i := range r {
+		r[i] = cloneAt(b.r[i], prec)
+	}
+	if b.rAt == nil {
+		b.rAt = map[uint][][]*big.Float{}
+	}
+	b.rAt[prec] = r
+	return r
 }
 
 // orient flips the u_k whose discrete inner product with q's u_k is
@@ -122,11 +145,15 @@ func dot(a, b []*big.Float, prec uint) *big.Float {
 // solveRT overwrites v with R^-T v at prec bits (forward substitution).
 func (b *basis) solveRT(v []*big.Float, prec uint) {
 	t := new(big.Float).SetPrec(prec)
+	r := b.rounded(prec)
 	for j := range v {
-		for i := 0; i < j; i++ {
-			v[j].Sub(v[j], t.Mul(b.r[i][j], v[i]))
+		if v[j].Prec() > prec {
+			v[j].SetPrec(prec)
 		}
-		v[j].Quo(v[j], b.r[j][j])
+		for i := 0; i < j; i++ {
+			v[j].Sub(v[j], t.Mul(r[i][j], v[i]))
+		}
+		v[j].Quo(v[j], r[j][j])
 	}
 	for j := range v {
 		if b.flip[j] {
