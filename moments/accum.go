@@ -50,6 +50,7 @@ type accum struct {
 	xa, xr, cr, ce    *precision.Real
 	expo              []int64 // exponent of the last node's term k (walk only)
 	zero              []bool
+	err               error // a function of a system that could not be evaluated (functions.go)
 }
 
 func (p *deProblem) newAccum(walk bool) *accum {
@@ -67,8 +68,12 @@ func (p *deProblem) newAccum(walk bool) *accum {
 // recurrence applied to r_k = c q_k(x) itself (it is linear), with the
 // exponent of each term added to the scale sums: 2^e > |r_k| >= 2^(e-1), so
 // the scale lies between one and two times the sum of |terms|.
-func (p *deProblem) add(a *accum, x, c *big.Float) {
-	a.xr.SetBig(x)
+func (p *deProblem) add(a *accum, pt dePoint, c *big.Float) {
+	if p.funcs != nil {
+		p.addFunctions(a, pt, c)
+		return
+	}
+	a.xr.SetBig(pt.x)
 	a.cr.SetBig(c)
 	prev, cur, next := a.r0, a.r1, a.r2
 	prev.SetInt64(0)

@@ -56,7 +56,10 @@ func (p *deProblem) piece(ctx context.Context, pc dePiece, budget []xfloat) (*de
 			if err != nil {
 				return nil, false, err
 			}
-			p.add(acc, pt.x, c)
+			p.add(acc, pt, c)
+			if acc.err != nil {
+				return nil, false, acc.err
+			}
 			if p.keep {
 				xs, cs = append(xs, pt.x), append(cs, c)
 			}
@@ -186,7 +189,11 @@ func (p *deProblem) level(pc dePiece, l, nPos, nNeg int, acc *accum) ([]*big.Flo
 					return
 				}
 				if !it.pair {
-					p.add(accs[w], pt.x, c)
+					p.add(accs[w], pt, c)
+					if accs[w].err != nil {
+						errs[w] = accs[w].err
+						return
+					}
 					if p.keep {
 						xs[i], cs[i] = pt.x, c
 					}
@@ -229,7 +236,7 @@ func (p *deProblem) node(pc dePiece, nd deNode, neg bool) (dePoint, *big.Float, 
 // paired reports whether the nodes of pc at t and -t are mirror images
 // about the centre of the basis, which must have a constant A.
 func (p *deProblem) paired(pc dePiece) bool {
-	if !p.aConst {
+	if !p.aConst || p.funcs != nil {
 		return false
 	}
 	switch pc.kind {

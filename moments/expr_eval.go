@@ -91,6 +91,10 @@ func func64(fn string, a float64) float64 { return funcs64[fn](a) }
 // intermediate beyond the range of big.Float (overflow); the error is one
 // sentence that names the expression and the position of the operation.
 func (e *Expr) EvalBig(prec uint, vals ...*big.Float) (*big.Float, error) {
+	return e.evalBig(prec, nil, vals)
+}
+
+func (e *Expr) evalBig(prec uint, cache map[string]*big.Float, vals []*big.Float) (*big.Float, error) {
 	if len(vals) != len(e.vars) {
 		panic(fmt.Sprintf("moments: EvalBig of %q with %d values for %d variables", e.src, len(vals), len(e.vars)))
 	}
@@ -112,7 +116,7 @@ func (e *Expr) EvalBig(prec uint, vals ...*big.Float) (*big.Float, error) {
 	var r *big.Float
 	var err error
 	for try, p := 0, prec; ; try, p = try+1, 2*p {
-		ev := bigEval{e: e, prec: p, constPrec: max(cp, p), vals: vals}
+		ev := bigEval{e: e, prec: p, constPrec: max(cp, p), vals: vals, cache: cache}
 		r, err = ev.eval(e.root)
 		var ce *cancelError
 		if err == nil || !errors.As(err, &ce) || try == maxCancelRetries {
@@ -143,6 +147,9 @@ type bigEval struct {
 	prec      uint
 	constPrec uint
 	vals      []*big.Float
+	// cache, when not nil, keeps the values of function calls by name,
+	// precision and argument, shared between expressions (EvalShared).
+	cache map[string]*big.Float
 }
 
 func (ev *bigEval) fail(n *node, format string, args ...any) error {
@@ -316,6 +323,21 @@ const maxTrigExp = 4096
 // call applies the function of n to a at prec bits. Arguments keep their
 // own precision (see EvalBig); the results are rounded to prec.
 func (ev *bigEval) call(n *node, a *big.Float) (*big.Float, error) {
+	if ev.cache == nil {
+		return ev.callOnce(n, a)
+	}
+	key := fmt.Sprintf("%s:%d:%s", n.fn, ev.prec, a.Text('p', 0))
+	if v, ok := ev.cache[key]; ok {
+		return v, nil
+	}
+	v, err := ev.callOnce(n, a)
+	if err == nil {
+		ev.cache[key] = v
+	}
+	return v, err
+}
+
+func (ev *bigEval) callOnce(n *node, a *big.Float) (*big.Float, error) {
 	prec := ev.prec
 	a = atPrec(a, prec)
 	if n.fn != "log" && a.Prec() > prec+64 {

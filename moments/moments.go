@@ -115,6 +115,9 @@ type deProblem struct {
 	// q_{n-1}, which has n-1 sign changes, needs about 4n nodes per unit of
 	// t, and three more levels leave room for the digits.
 	maxLevel int
+	// funcs, when not nil, replaces the basis: term k is c f_k(x), with
+	// f_k evaluated at the extended point (functions.go).
+	funcs []*Expr
 }
 
 // deResult is the sum of the accepted pieces.
@@ -181,6 +184,10 @@ func (w *Weight) integrateShared(ctx context.Context, n int, basis Basis, digits
 }
 
 func (w *Weight) integrate(ctx context.Context, n int, basis Basis, digits int, prec uint, keep bool) (*deResult, error) {
+	return w.run(ctx, w.newProblem(n, basis, digits, prec, keep))
+}
+
+func (w *Weight) newProblem(n int, basis Basis, digits int, prec uint, keep bool) *deProblem {
 	p := &deProblem{w: w, nk: n, digits: digits, prec: prec, nprec: prec + 64, tol: xfPow10(digits), keep: keep, maxGap: maxEndGap}
 	p.maxLevel = min(14, max(6, bits.Len(uint(n))+3))
 	p.a = precision.NewRealSlice(n, prec)
@@ -199,6 +206,12 @@ func (w *Weight) integrate(ctx context.Context, n int, basis Basis, digits int, 
 			p.bZero = false
 		}
 	}
+	return p
+}
+
+// run integrates p over w's pieces, splitting those that do not converge.
+func (w *Weight) run(ctx context.Context, p *deProblem) (*deResult, error) {
+	n, prec, digits := p.nk, p.prec, p.digits
 	total := &deResult{sum: precision.NewRealSlice(n, prec), abs: make([]xfloat, n), est: make([]xfloat, n)}
 	type job struct {
 		pc     dePiece

@@ -29,6 +29,12 @@ type File struct {
 	Family     *Family         `json:"family,omitempty"`
 	Provenance *Provenance     `json:"provenance,omitempty"`
 	Report     json.RawMessage `json:"report,omitempty"`
+
+	// Functions and ExactFor describe a rule for a function system
+	// (CONTRACT.md, "Function systems"): the expanded expressions, and how
+	// many of them the printed rule was verified to integrate.
+	Functions []string `json:"functions,omitempty"`
+	ExactFor  *int     `json:"exact_for,omitempty"`
 }
 
 // Domain is where the rule lives: an interval, or (for element rules) a

@@ -31,6 +31,7 @@ type auditOptions struct {
 	shape     string
 	// inferredShape: the table named no element and InferElement chose it.
 	inferredShape bool
+	functions     functionFlags // audit_functions.go
 }
 
 func newAuditCommand() *cobra.Command {
@@ -86,6 +87,7 @@ group under which the rule is invariant to its own digits.`,
 	f.StringVar(&o.maxDegree, "max-degree", "", "highest degree to test (default 2N+1, lowered to what the measure provides)")
 	f.StringVar(&o.format, "format", "text", "output format: text, json, csv or html (csv: the residual by degree, for plots; html: a self-contained page with inline plots)")
 	f.StringVarP(&o.output, "output", "o", "", "write the report to this file (atomically) instead of standard output")
+	addAuditFunctionFlags(cmd, &o.functions)
 	f.StringVar(&o.failOn, "fail-on", "", "comma-separated conditions that make the exit status 2: negative, outside, degree<K, lost>L (L in decimal digits)")
 	f.BoolVar(&o.quick, "quick", false, "leave out the test integrands and the matrix conditioning")
 	f.StringVar(&o.shape, "shape", "", "audit the rule on this reference element ("+strings.Join(element.ShapeNames, ", ")+"); default: the rule file's domain.shape (needed for a text table of \"x y [z] weight\" lines)")
@@ -145,6 +147,9 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 	}
 	if file.Dim() != 1 {
 		return fmt.Errorf("rule file %s: its nodes have %d coordinates and it names no element; give the element with --shape", path, file.Dim())
+	}
+	if o.functions.given() {
+		return runFunctionsAudit(ctx, o, file, path, format, checks, opt, cmd)
 	}
 	m, err := o.resolveAuditMeasure(ctx, file, path)
 	if err != nil {

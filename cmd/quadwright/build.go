@@ -21,6 +21,7 @@ type buildOptions struct {
 	engine, verify               string // the fast path (build_fast.go)
 	failOn                       string // build_failon.go
 	fastFacts                    *auditFacts
+	functions                    functionFlags // build_functions.go
 }
 
 func newBuildCommand() *cobra.Command {
@@ -78,6 +79,7 @@ points = 12, interval = "0,1", ...); flags given beside it override it.`,
 		},
 	}
 	addMeasureFlags(cmd, &o.measure)
+	addFunctionFlags(cmd, &o.functions)
 	f := cmd.Flags()
 	f.StringVar(&o.points, "points", "", fmt.Sprintf("number of nodes N, 1 to %d (required; above %d only by the fast float64 path)", design.FastMaxPoints, design.MaxPoints))
 	f.StringVar(&o.kind, "kind", "gauss", kindHelp)
@@ -103,6 +105,12 @@ func runBuild(ctx context.Context, o *buildOptions, cmd *cobra.Command) error {
 	checks, err := parseFailOn(o.failOn)
 	if err != nil {
 		return err
+	}
+	if o.functions.given() {
+		if len(checks) > 0 {
+			return fmt.Errorf("--fail-on: not available with --functions; audit the rule file with --fail-on instead")
+		}
+		return runBuildFunctions(ctx, o, format, cmd.OutOrStdout())
 	}
 	o.points = o.pointsForNodes()
 	if o.points == "" {
