@@ -6,8 +6,6 @@ import (
 	"math"
 	"math/big"
 
-	"gonum.org/v1/gonum/mat"
-
 	"quadwright/moments"
 	"quadwright/precision"
 )
@@ -151,42 +149,12 @@ func Weighted(ctx context.Context, req Request) (*Rule, error) {
 			return nil, err
 		}
 		ms := &momentSystem{s: s, bb: bb, C: C, mu: mu1}
-		b := make([]float64, M)
-		mu64 := make([]float64, M)
-		for j := range mu64 {
-			mu64[j], _ = mu1[j].Float64()
-		}
-		mat.NewVecDense(M, b).MulVec(C.T(), mat.NewVecDense(M, mu64))
-		bn := 0.0
-		for _, v := range b {
-			bn += v * v
-		}
-		bn = math.Sqrt(bn)
-		var QT mat.Dense
-		QT.CloneFrom(Q.T())
-		v, _ := nnls(&QT, b, 1e-15, 4*M)
-		start := &wrule{}
-		for i, vi := range v {
-			if vi <= 0 {
-				continue
-			}
-			l, _ := cand.lambda[i].Float64()
-			ui := new(big.Float).SetPrec(prec1).SetFloat64(vi * math.Sqrt(l))
-			xi := make([]*big.Float, s.Dim())
-			for k := range xi {
-				xi[k] = new(big.Float).SetPrec(prec1).Set(cand.pts[i][k])
-			}
-			start.x, start.u = append(start.x, xi), append(start.u, ui)
-		}
+		start, bn := ms.subsample(Q, cand, prec1)
 		if len(start.x) == 0 {
 			return nil, fmt.Errorf("%s on the %s: no positive rule was found for its moments (are they the moments of a weight >= 0?)", r.Weight, s)
 		}
-		// Elimination runs at 128 bits to float64-level residuals; the
-		// survivors then start the solve at the working precision.
 		tolLog2 := func(digits int) float64 { return math.Log2(bn) - float64(digits)*math.Log2(10) }
-		if fewer, _, err := ms.solve(ctx, start.at(128), 128, tolLog2(13), 25); err == nil {
-			start = ms.eliminate(ctx, fewer, 128, tolLog2(13)).at(prec1)
-		}
+		start = ms.thin(ctx, start, bn, prec1)
 		maxIter := 40 + base/5
 		r1, _, err := ms.solve(ctx, start, prec1, tolLog2(base+guard/2), maxIter)
 		if err != nil {

@@ -43,6 +43,10 @@ type momentSystem struct {
 	bb *boxBasis
 	C  *mat.Dense // M x M
 	mu []*big.Float
+	// inside, when not nil, is the open domain the nodes must stay in
+	// (SolveRegion's region, in the coordinates of the box s); nil means
+	// the element s itself.
+	inside func(x []float64) bool
 }
 
 // residual returns C^T (sum_i u_i phi(x_i) - mu) in float64, scaled by
@@ -167,7 +171,7 @@ func (ms *momentSystem) step(r *wrule, d []float64, t float64, shift int, prec u
 			out.x[i][k] = v.Add(v, r.x[i][k])
 			p[k], _ = out.x[i][k].Float64()
 		}
-		if !insideOpen64(ms.s, p) {
+		if !ms.insideOpen(p) {
 			return nil, i
 		}
 	}
