@@ -19,16 +19,15 @@ const eliminationWork = 1.2e11
 // (2010): the points are tried in increasing order of significance u_i
 // |psi(x_i)|^2 (the share of the weighted basis the point carries), each
 // removal followed by damped Gauss-Newton with minimum-norm steps from the
-// remaining points, during which a point whose weight would collapse or
-// which would leave the element is dropped as well (solveDropping). A
+// remaining points, during which a point whose weight would collapse is
+// dropped as well (solveDropping). Every point is tried before giving up. A
 // rule of n points has (dim+1) n unknowns, so no removal is tried below
 // ceil(M / (dim+1)) points.
 func (ms *momentSystem) eliminate(ctx context.Context, r *wrule, prec uint, tolLog2 float64) *wrule {
 	M, dim := ms.bb.size(), ms.s.Dim()
 	minPts := (M + dim) / (dim + 1)
-	per := 24 * float64(M) * float64(M) * float64((dim+1)*len(r.x)) // one attempt, at most 12 steps of QR
+	per := 24 * float64(M) * float64(M) * float64((dim+1)*len(r.x)) // one attempt, about 12 steps of QR
 	budget := int(math.Min(float64(4*M), math.Max(8, eliminationWork/per)))
-	const triesPerRound = 8
 	// Far above the fewest points possible, the least significant points
 	// are first removed in batches (halved on failure), which saves most
 	// of the attempts; single removals finish the job.
@@ -54,9 +53,9 @@ func (ms *momentSystem) eliminate(ctx context.Context, r *wrule, prec uint, tolL
 			continue
 		}
 		removed := false
-		for t := 0; t < triesPerRound && t < len(order) && budget > 0; t++ {
+		for t := 0; t < len(order) && budget > 0; t++ {
 			budget--
-			if res, _, err := ms.solveDropping(ctx, r.without(order[t]), prec, tolLog2, 12, minPts); err == nil {
+			if res, _, err := ms.solveDropping(ctx, r.without(order[t]), prec, tolLog2, elimIter, minPts); err == nil {
 				r, removed = res, true
 				break
 			}
@@ -113,3 +112,5 @@ func (r *wrule) without(drop ...int) *wrule {
 	}
 	return out
 }
+
+var elimIter = 12
