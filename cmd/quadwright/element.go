@@ -18,6 +18,7 @@ type elementOptions struct {
 	product, lobatto                      bool
 	allowNegative, allowOutside           bool
 	weight, momentsFile                   string
+	poly                                  polytopeOptions
 }
 
 func newElementCommand() *cobra.Command {
@@ -84,6 +85,7 @@ digits of decimal moments limit --digits.`,
 	f.StringVar(&o.weight, "weight", "", "weight function of the coordinates x, y, z (as many as the element has), for example \"x\" or \"exp(-x*y)\": the rule is for the integral of w p over the element (default: weight 1)")
 	f.StringVar(&o.momentsFile, "moments", "", "file of the weight's monomial moments, lines \"a b [c] value\" (value: the integral of x^a y^b z^c w, decimal or p/q), instead of --weight")
 	f.BoolVar(&o.allowNegative, "allow-negative", false, "accept rules with negative weights (every rule built now has positive weights)")
+	addPolytopeFlags(f, &o.poly)
 	f.BoolVar(&o.allowOutside, "allow-outside", false, "accept rules with nodes outside the element (every rule built now has its nodes inside)")
 	return cmd
 }
@@ -91,6 +93,9 @@ digits of decimal moments limit --digits.`,
 func runElement(ctx context.Context, o *elementOptions, cmd *cobra.Command) error {
 	if ctx == nil {
 		ctx = context.Background()
+	}
+	if o.poly.active() {
+		return runPolytope(ctx, o, cmd)
 	}
 	format, err := parseFormat(o.format)
 	if err != nil {

@@ -192,7 +192,7 @@ func verify(ctx context.Context, c cell, r *Rule) error {
 			return fmt.Errorf("the %s rule of degree %d has node %d %v outside the %s", kind, r.Requested, i+1, r.Nodes[i], kind)
 		}
 	}
-	ex, err := Verify(ctx, c, r.Nodes, r.Weights, r.Requested, r.Digits)
+	ex, err := verifyExact(ctx, c, r.Nodes, r.Weights, r.Requested, r.Digits)
 	if err != nil {
 		return err
 	}
@@ -203,10 +203,10 @@ func verify(ctx context.Context, c cell, r *Rule) error {
 	return nil
 }
 
-// Verify tests the printed rule on every monomial of total degree <=
+// verifyExact tests the printed rule on every monomial of total degree <=
 // maxDeg against the exact moments of the cell, with the tolerance of
 // element.VerifyAgainst for digits significant digits (0: float64, 17).
-func Verify(ctx context.Context, c cell, nodes [][]string, weights []string, maxDeg, digits int) (element.Exactness, error) {
+func verifyExact(ctx context.Context, c cell, nodes [][]string, weights []string, maxDeg, digits int) (element.Exactness, error) {
 	dim := c.dimension()
 	frame := element.Quadrilateral
 	if dim == 3 {
