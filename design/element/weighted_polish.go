@@ -47,6 +47,21 @@ type momentSystem struct {
 	// (SolveRegion's region, in the coordinates of the box s); nil means
 	// the element s itself.
 	inside func(x []float64) bool
+	// evals caches the basis evaluator by precision: building one costs
+	// as much as a residual at low degree.
+	evals map[uint]*realEval
+}
+
+func (ms *momentSystem) evalAt(prec uint) *realEval {
+	if re, ok := ms.evals[prec]; ok {
+		return re
+	}
+	if ms.evals == nil {
+		ms.evals = map[uint]*realEval{}
+	}
+	re := ms.bb.newRealEval(prec)
+	ms.evals[prec] = re
+	return re
 }
 
 // residual returns C^T (sum_i u_i phi(x_i) - mu) in float64, scaled by
@@ -56,7 +71,7 @@ type momentSystem struct {
 func (ms *momentSystem) residual(r *wrule, prec uint) (F []float64, shift int, log2Norm float64) {
 	M := ms.bb.size()
 	dim := ms.s.Dim()
-	re := ms.bb.newRealEval(prec)
+	re := ms.evalAt(prec)
 	sum := precision.NewRealSlice(M, prec)
 	val := precision.NewRealSlice(M, prec)
 	x := precision.NewRealSlice(dim, prec)

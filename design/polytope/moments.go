@@ -26,52 +26,82 @@ func key3(e []int) [3]int {
 	return k
 }
 
-func factorialRat(n int) *big.Rat {
-	f := new(big.Int).MulRange(1, int64(max(n, 1)))
-	return new(big.Rat).SetInt(f)
-}
-
 // simplexAverages returns, for every exponent tuple a of ix, the integral
 // of x^a over the simplex with the m+1 vertices vs divided by m! times its
 // unsigned volume (the integral against the standard simplex measure of
 // total mass 1/m!, times m!). It uses the closed form
 //
 //	int_S x^a = m! vol(S) a! / (|a| + m)! sum over b_0 + ... + b_m = a of
-//	            prod_k |b_k|! / b_k! v_k^(b_k)
+//	            prod_k (|b_k| choose b_k) v_k^(b_k)
 //
 // (the monomial form of the complete-homogeneous formula for powers of a
 // linear form, V. Baldoni, N. Berline, J. De Loera, M. Koeppe and M.
 // Vergne, "How to integrate a polynomial over a simplex", Math. Comp. 80,
-// 2011), the sum formed as a convolution over the vertices.
+// 2011), the sum formed as a convolution over the vertices. The vertices
+// are first scaled to integers by the common denominator L of their
+// coordinates, so that the convolution runs on integers (multinomial
+// coefficients times integer powers) and only the final factor
+// L^-|a| a!/(|a|+m)! is rational: the reduction of rationals at every
+// step cost more than the rest.
 func simplexAverages(vs [][]*big.Rat, ix *expIndex) []*big.Rat {
 	m := len(vs) - 1
 	N := len(ix.exps)
-	// c[k][j] = |b|!/b! v_k^b for b = exps[j].
-	coef := func(v []*big.Rat) []*big.Rat {
-		out := make([]*big.Rat, N)
+	dim := len(vs[0])
+	L := big.NewInt(1)
+	g0 := new(big.Int)
+	for _, v := range vs {
+		for _, c := range v {
+			d := c.Denom()
+			g0.GCD(nil, nil, L, d)
+			L.Mul(L, new(big.Int).Quo(d, g0))
+		}
+	}
+	iv := make([][]*big.Int, len(vs))
+	for k, v := range vs {
+		iv[k] = make([]*big.Int, dim)
+		for i, c := range v {
+			t := new(big.Int).Mul(c.Num(), L)
+			iv[k][i] = t.Quo(t, c.Denom())
+		}
+	}
+	deg := 0
+	for _, e := range ix.exps {
+		deg = max(deg, sum(e))
+	}
+	multi := multinomials(ix)
+	// pw[i][p] = v_i^p, built per vertex.
+	coef := func(v []*big.Int) []*big.Int {
+		pw := make([][]*big.Int, dim)
+		for i := range pw {
+			pw[i] = make([]*big.Int, deg+1)
+			pw[i][0] = big.NewInt(1)
+			for p := 1; p <= deg; p++ {
+				pw[i][p] = new(big.Int).Mul(pw[i][p-1], v[i])
+			}
+		}
+		out := make([]*big.Int, N)
 		for j, b := range ix.exps {
-			t := new(big.Rat).Set(factorialRat(sum(b)))
+			t := new(big.Int).Set(multi[j])
 			for i, bi := range b {
-				t.Quo(t, factorialRat(bi))
-				t.Mul(t, ratPow(v[i], bi))
+				t.Mul(t, pw[i][bi])
 			}
 			out[j] = t
 		}
 		return out
 	}
-	g := coef(vs[0])
-	tmp := new(big.Rat)
+	g := coef(iv[0])
+	tmp := new(big.Int)
+	rest := make([]int, dim)
 	for k := 1; k <= m; k++ {
-		c := coef(vs[k])
-		next := make([]*big.Rat, N)
+		c := coef(iv[k])
+		next := make([]*big.Int, N)
 		for j, a := range ix.exps {
-			s := new(big.Rat)
+			s := new(big.Int)
 			forEachBelow(a, func(b []int) {
 				jb := ix.pos[key3(b)]
 				if c[jb].Sign() == 0 {
 					return
 				}
-				rest := make([]int, len(a))
 				for i := range a {
 					rest[i] = a[i] - b[i]
 				}
@@ -85,17 +115,38 @@ func simplexAverages(vs [][]*big.Rat, ix *expIndex) []*big.Rat {
 		}
 		g = next
 	}
-	for j, a := range ix.exps {
-		f := new(big.Rat).Set(factorialRat(m))
-		for _, ai := range a {
-			f.Mul(f, factorialRat(ai))
-		}
-		f.Quo(f, factorialRat(sum(a)+m))
-		// The m! of the formula belongs to m! vol(S), divided out.
-		f.Quo(f, factorialRat(m))
-		g[j].Mul(g[j], f)
+	out := make([]*big.Rat, N)
+	Lp := make([]*big.Int, deg+1)
+	Lp[0] = big.NewInt(1)
+	for p := 1; p <= deg; p++ {
+		Lp[p] = new(big.Int).Mul(Lp[p-1], L)
 	}
-	return g
+	for j, a := range ix.exps {
+		num := new(big.Int).Set(g[j])
+		for _, ai := range a {
+			num.Mul(num, factorialInt(ai))
+		}
+		den := new(big.Int).Mul(factorialInt(sum(a)+m), Lp[sum(a)])
+		out[j] = new(big.Rat).SetFrac(num, den)
+	}
+	return out
+}
+
+// multinomials returns |b|! / (b_1! ... b_dim!) for every tuple of ix.
+func multinomials(ix *expIndex) []*big.Int {
+	out := make([]*big.Int, len(ix.exps))
+	for j, b := range ix.exps {
+		t := factorialInt(sum(b))
+		for _, bi := range b {
+			t.Quo(t, factorialInt(bi))
+		}
+		out[j] = t
+	}
+	return out
+}
+
+func factorialInt(n int) *big.Int {
+	return new(big.Int).MulRange(1, int64(max(n, 1)))
 }
 
 func sum(e []int) int {
@@ -104,14 +155,6 @@ func sum(e []int) int {
 		s += v
 	}
 	return s
-}
-
-func ratPow(x *big.Rat, n int) *big.Rat {
-	out := big.NewRat(1, 1)
-	for i := 0; i < n; i++ {
-		out.Mul(out, x)
-	}
-	return out
 }
 
 // forEachBelow calls f with every tuple b, 0 <= b <= a componentwise.
