@@ -7,6 +7,8 @@ import (
 	"math/big"
 	"sync"
 
+	"gonum.org/v1/gonum/mat"
+
 	"quadwright/precision"
 )
 
@@ -229,14 +231,6 @@ func SolveRegion(ctx context.Context, reg Region, digits int) (*Solution, error)
 	for int(math.Pow(float64(n), float64(reg.Dim)))*len(reg.Simplices) < 2*M && n < deg+2 {
 		n++
 	}
-	cand, err := regionCandidates(ctx, reg, n)
-	if err != nil {
-		return nil, err
-	}
-	Q, C, cond, err := orthonormalize(cand, bb)
-	if err != nil {
-		return nil, err
-	}
 	exact := bb.fromMonomials(reg.Moments)
 	at := func(prec uint) []*big.Float {
 		mu := make([]*big.Float, M)
@@ -245,20 +239,49 @@ func SolveRegion(ctx context.Context, reg Region, digits int) (*Solution, error)
 		}
 		return mu
 	}
-	guard := 10 + int(math.Ceil(math.Log10(cond)))
+	// Elimination from one candidate rule can stall above the count the
+	// moment equations allow; a finer collapsed rule gives another start.
+	// Up to three are thinned and the smallest kept, stopping at the first
+	// within ceil(M/(dim+1)) + dim + 1 points.
+	target := (M+reg.Dim)/(reg.Dim+1) + reg.Dim + 1
+	var best *wrule
+	var bestBn, bestCond float64
+	var C *mat.Dense
 	var lastErr error
+	for k := 0; k < 3 && (best == nil || len(best.x) > target); k++ {
+		cand, err := regionCandidates(ctx, reg, n+k)
+		if err != nil {
+			return nil, err
+		}
+		Q, Ck, cond, err := orthonormalize(cand, bb)
+		if err != nil {
+			lastErr = err
+			continue
+		}
+		prec1 := precision.DigitsToBits(base+10+int(math.Ceil(math.Log10(cond)))) + 32
+		ms := &momentSystem{s: frame, bb: bb, C: Ck, mu: at(prec1), inside: reg.Inside}
+		start, bn := ms.subsample(Q, cand, prec1)
+		if len(start.x) == 0 {
+			lastErr = fmt.Errorf("no positive subsample of the candidate rule was found")
+			continue
+		}
+		start = ms.thin(ctx, start, bn, prec1)
+		if best == nil || len(start.x) < len(best.x) {
+			best, bestBn, bestCond, C = start, bn, cond, Ck
+		}
+	}
+	if best == nil {
+		return nil, lastErr
+	}
+	bn := bestBn
+	tolLog2 := func(digits int) float64 { return math.Log2(bn) - float64(digits)*math.Log2(10) }
+	guard := 10 + int(math.Ceil(math.Log10(bestCond)))
 	for try := 0; try < 2; try, guard = try+1, guard+16 {
 		d1 := base + guard
 		prec1 := precision.DigitsToBits(d1) + 32
 		ms := &momentSystem{s: frame, bb: bb, C: C, mu: at(prec1), inside: reg.Inside}
-		start, bn := ms.subsample(Q, cand, prec1)
-		if len(start.x) == 0 {
-			return nil, fmt.Errorf("no positive subsample of the candidate rule was found")
-		}
-		tolLog2 := func(digits int) float64 { return math.Log2(bn) - float64(digits)*math.Log2(10) }
-		start = ms.thin(ctx, start, bn, prec1)
 		maxIter := 40 + base/5
-		r1, _, err := ms.solve(ctx, start, prec1, tolLog2(base+guard/2), maxIter)
+		r1, _, err := ms.solve(ctx, best.at(prec1), prec1, tolLog2(base+guard/2), maxIter)
 		if err != nil {
 			return nil, fmt.Errorf("no rule with positive weights and interior nodes found: %v", err)
 		}
