@@ -241,14 +241,14 @@ func SolveRegion(ctx context.Context, reg Region, digits int) (*Solution, error)
 	}
 	// Elimination from one candidate rule can stall above the count the
 	// moment equations allow; a finer collapsed rule gives another start.
-	// Up to three are thinned and the smallest kept, stopping at the first
+	// Up to five are thinned and the smallest kept, stopping at the first
 	// within ceil(M/(dim+1)) + dim + 1 points.
 	target := (M+reg.Dim)/(reg.Dim+1) + reg.Dim + 1
 	var best *wrule
 	var bestBn, bestCond float64
 	var C *mat.Dense
 	var lastErr error
-	for k := 0; k < 3 && (best == nil || len(best.x) > target); k++ {
+	for k := 0; k < 5 && (best == nil || len(best.x) > target); k++ {
 		cand, err := regionCandidates(ctx, reg, n+k)
 		if err != nil {
 			return nil, err
