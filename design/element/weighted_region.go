@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"sort"
 	"sync"
 
 	"gonum.org/v1/gonum/mat"
@@ -241,14 +242,30 @@ func SolveRegion(ctx context.Context, reg Region, digits int) (*Solution, error)
 	}
 	// Elimination from one candidate rule can stall above the count the
 	// moment equations allow; a finer collapsed rule gives another start.
-	// Up to five are thinned and the smallest kept, stopping at the first
-	// within ceil(M/(dim+1)) + dim + 1 points.
+	// Up to five are thinned; the first within ceil(M/(dim+1)) + dim + 1
+	// points that solves at both precisions is the answer, else the
+	// smallest of the others that does (a thinned rule can sit where the
+	// equations are singular, and fail there).
 	target := (M+reg.Dim)/(reg.Dim+1) + reg.Dim + 1
-	var best *wrule
-	var bestBn, bestCond float64
-	var C *mat.Dense
+	type thinned struct {
+		r        *wrule
+		bn, cond float64
+		C        *mat.Dense
+	}
+	var starts []thinned
 	var lastErr error
-	for k := 0; k < 5 && (best == nil || len(best.x) > target); k++ {
+	solveBest := func() *Solution {
+		sort.SliceStable(starts, func(a, b int) bool { return len(starts[a].r.x) < len(starts[b].r.x) })
+		for _, st := range starts {
+			sol, err := solveTwice(ctx, frame, bb, st.C, at, reg.Inside, st.r, st.bn, st.cond, digits)
+			if err == nil {
+				return sol
+			}
+			lastErr = err
+		}
+		return nil
+	}
+	for k := 0; k < 5; k++ {
 		cand, err := regionCandidates(ctx, reg, n+k)
 		if err != nil {
 			return nil, err
@@ -265,28 +282,46 @@ func SolveRegion(ctx context.Context, reg Region, digits int) (*Solution, error)
 			lastErr = fmt.Errorf("no positive subsample of the candidate rule was found")
 			continue
 		}
-		start = ms.thin(ctx, start, bn, prec1)
-		if best == nil || len(start.x) < len(best.x) {
-			best, bestBn, bestCond, C = start, bn, cond, Ck
+		st := thinned{ms.thin(ctx, start, bn, prec1), bn, cond, Ck}
+		if len(st.r.x) <= target {
+			sol, err := solveTwice(ctx, frame, bb, st.C, at, reg.Inside, st.r, st.bn, st.cond, digits)
+			if err == nil {
+				return sol, nil
+			}
+			lastErr = err
+			continue
 		}
+		starts = append(starts, st)
 	}
-	if best == nil {
-		return nil, lastErr
+	// None reached the target: the smallest that solves.
+	if sol := solveBest(); sol != nil {
+		return sol, nil
 	}
-	bn := bestBn
+	return nil, lastErr
+}
+
+// solveTwice solves the thinned rule start at the working precision and
+// again at a higher one (the confirmation pair), with more guard digits
+// on a second try when the pair does not confirm the digits asked.
+func solveTwice(ctx context.Context, frame Shape, bb *boxBasis, C *mat.Dense, at func(uint) []*big.Float, inside func([]float64) bool, start *wrule, bn, cond float64, digits int) (*Solution, error) {
+	base := digits
+	if base == 0 {
+		base = 17
+	}
 	tolLog2 := func(digits int) float64 { return math.Log2(bn) - float64(digits)*math.Log2(10) }
-	guard := 10 + int(math.Ceil(math.Log10(bestCond)))
+	guard := 10 + int(math.Ceil(math.Log10(cond)))
+	var lastErr error
 	for try := 0; try < 2; try, guard = try+1, guard+16 {
 		d1 := base + guard
 		prec1 := precision.DigitsToBits(d1) + 32
-		ms := &momentSystem{s: frame, bb: bb, C: C, mu: at(prec1), inside: reg.Inside}
+		ms := &momentSystem{s: frame, bb: bb, C: C, mu: at(prec1), inside: inside}
 		maxIter := 40 + base/5
-		r1, _, err := ms.solve(ctx, best.at(prec1), prec1, tolLog2(base+guard/2), maxIter)
+		r1, _, err := ms.solve(ctx, start.at(prec1), prec1, tolLog2(base+guard/2), maxIter)
 		if err != nil {
 			return nil, fmt.Errorf("no rule with positive weights and interior nodes found: %v", err)
 		}
 		prec2 := precision.DigitsToBits(d1+24) + 32
-		ms2 := &momentSystem{s: frame, bb: bb, C: C, mu: at(prec2), inside: reg.Inside}
+		ms2 := &momentSystem{s: frame, bb: bb, C: C, mu: at(prec2), inside: inside}
 		r2, _, err := ms2.solve(ctx, r1.at(prec2), prec2, tolLog2(base+guard), maxIter)
 		if err != nil {
 			lastErr = fmt.Errorf("the rule could not be confirmed at higher precision: %v", err)
