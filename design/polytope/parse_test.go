@@ -10,7 +10,7 @@ import (
 func TestRefusals(t *testing.T) {
 	for _, c := range []struct {
 		name, src, want string
-		poly           bool
+		poly            bool
 	}{
 		{"self-intersecting", "0 0\n1 1\n1 0\n0 1\n", "edges 1 (vertices 1-2) and 3 (vertices 3-4) intersect", false},
 		{"repeated vertex", "0 0\n1 0\n1 1\n1 0\n0 1\n", "vertices 2 and 4 are the same point", false},
