@@ -91,3 +91,6 @@ func BenchmarkPolygonBatchRepeated(b *testing.B) { runBatch(b, repeatedBlocks(10
 
 // BenchmarkPolygonBatch50 is a tenth... a fiftieth of BenchmarkPolygonBatch, for quick looks.
 func BenchmarkPolygonBatch50(b *testing.B) { runBatch(b, hexBlocks(50, 1)) }
+
+// BenchmarkPolygonBatchRepeated1000 is a tenth of BenchmarkPolygonBatchRepeated, for quick looks.
+func BenchmarkPolygonBatchRepeated1000(b *testing.B) { runBatch(b, repeatedBlocks(1000)) }
