@@ -3,6 +3,7 @@ package polytope
 import (
 	"context"
 	"fmt"
+	"math"
 	"math/big"
 
 	"quadwright/design/element"
@@ -223,13 +224,79 @@ func verifyExact(ctx context.Context, c cell, nodes [][]string, weights []string
 }
 
 // inSimplices reports whether p lies in the closed union of the simplices.
+// A point clearly inside one simplex in float64 (every barycentric
+// coordinate above 1e-9, the simplex not flatter than 1e-6) is accepted
+// without the exact test: the float64 coordinates are wrong by about
+// 1e-15 relative, far inside that margin; every other case is decided
+// exactly.
 func inSimplices(simp [][][]*big.Rat, p []*big.Rat) bool {
+	pf := make([]float64, len(p))
+	for k := range p {
+		pf[k], _ = p[k].Float64()
+	}
+	for _, s := range simp {
+		if clearlyInside(s, pf) {
+			return true
+		}
+	}
 	for _, s := range simp {
 		if inSimplex(s, p) {
 			return true
 		}
 	}
 	return false
+}
+
+// clearlyInside is the float64 filter of inSimplices.
+func clearlyInside(s [][]*big.Rat, p []float64) bool {
+	dim := len(p)
+	v := make([][]float64, len(s))
+	for i := range s {
+		v[i] = make([]float64, dim)
+		for k := range s[i] {
+			v[i][k], _ = s[i][k].Float64()
+		}
+	}
+	det := func(rows [][]float64) float64 {
+		if dim == 2 {
+			return rows[0][0]*rows[1][1] - rows[0][1]*rows[1][0]
+		}
+		return rows[0][0]*(rows[1][1]*rows[2][2]-rows[1][2]*rows[2][1]) - rows[0][1]*(rows[1][0]*rows[2][2]-rows[1][2]*rows[2][0]) + rows[0][2]*(rows[1][0]*rows[2][1]-rows[1][1]*rows[2][0])
+	}
+	// barycentric coordinates by Cramer's rule on the edge vectors from v0
+	E := make([][]float64, dim)
+	lens := 1.0
+	for k := 0; k < dim; k++ {
+		E[k] = make([]float64, dim)
+		n := 0.0
+		for i := 0; i < dim; i++ {
+			E[k][i] = v[k+1][i] - v[0][i]
+			n += E[k][i] * E[k][i]
+		}
+		lens *= math.Sqrt(n)
+	}
+	D := det(E)
+	if math.Abs(D) < 1e-6*lens {
+		return false
+	}
+	sum := 0.0
+	for k := 0; k < dim; k++ {
+		F := make([][]float64, dim)
+		for j := range F {
+			F[j] = E[j]
+		}
+		q := make([]float64, dim)
+		for i := range q {
+			q[i] = p[i] - v[0][i]
+		}
+		F[k] = q
+		l := det(F) / D
+		if l <= 1e-9 {
+			return false
+		}
+		sum += l
+	}
+	return 1-sum > 1e-9
 }
 
 // inSimplex tests p against every facet of s: p and the opposite vertex
