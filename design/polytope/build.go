@@ -64,8 +64,8 @@ type cell interface {
 	canonical() (canon cell, key string, sim similarity)
 	moments(deg int) []*big.Rat
 	simplices() [][][]*big.Rat
-	// framed returns the cell moved by w -> (w - c)/h into [-1,1]^dim.
-	framed() (cell, []*big.Rat, *big.Rat)
+	// framed returns the cell moved by w_k -> (w_k - c_k)/h_k into [-1,1]^dim.
+	framed() (cell, []*big.Rat, []*big.Rat)
 	insideOpen() func(x []float64) bool
 	describe() (kind string, vertices [][]string, faces [][]int)
 }
@@ -105,7 +105,7 @@ func BuildPolyhedron(ctx context.Context, p *Polyhedron, opt Options) (*Rule, er
 type classSolution struct {
 	sol    *element.Solution
 	center []*big.Rat
-	half   *big.Rat
+	half   []*big.Rat
 }
 
 // solveClass builds the rule of a canonical form.
@@ -141,20 +141,20 @@ func build(ctx context.Context, c cell, opt Options, cache func(key string, cano
 	if err != nil {
 		return nil, fmt.Errorf("degree %d: %v", opt.Degree, err)
 	}
-	// x = t + A (c + h xi) = (t + A c) + (h A) xi.
+	// x = t + A (c + H xi) = (t + A c) + (A H) xi, H = diag(h).
 	A := make([][]*big.Rat, dim)
 	t := make([]*big.Rat, dim)
 	for i := 0; i < dim; i++ {
 		A[i] = make([]*big.Rat, dim)
 		t[i] = new(big.Rat).Set(sim.t[i])
 		for j := 0; j < dim; j++ {
-			A[i][j] = new(big.Rat).Mul(cs.half, sim.A[i][j])
+			A[i][j] = new(big.Rat).Mul(sim.A[i][j], cs.half[j])
 			t[i].Add(t[i], new(big.Rat).Mul(sim.A[i][j], cs.center[j]))
 		}
 	}
 	det := new(big.Rat).Set(sim.det)
 	for i := 0; i < dim; i++ {
-		det.Mul(det, cs.half)
+		det.Mul(det, cs.half[i])
 	}
 	nodes, weights, ok := cs.sol.Mapped(A, t, det).Print(opt.Digits)
 	if !ok {

@@ -19,15 +19,30 @@ type similarity struct {
 // order, the form started at vertex k is w_i = (z_(k+i) - z_k) /
 // (z_(k+1) - z_k): exact, unchanged by any similarity (which multiplies
 // the differences by one complex number), with w_0 = 0 and w_1 = 1. Of
-// the n starts the one with the smallest key is taken, so that the form
-// depends on the class alone; the map back is z = z_k + e w with e =
+// the starts on a longest edge (so that a sliver lies along the x axis of
+// its form, where the frame's per-axis scaling undoes its aspect) the
+// one with the smallest key is taken, so that the form depends on the
+// class alone; the map back is z = z_k + e w with e =
 // z_(k+1) - z_k, the rotation-and-scaling matrix [[a, -b], [b, a]].
 func canonicalPolygon(p *Polygon) (*Polygon, string, similarity) {
 	v := p.ccw()
 	n := len(v)
+	lens := make([]*big.Rat, n)
+	longest := new(big.Rat)
+	for k := 0; k < n; k++ {
+		e := sub2(v[(k+1)%n], v[k])
+		lens[k] = new(big.Rat).Mul(e[0], e[0])
+		lens[k].Add(lens[k], new(big.Rat).Mul(e[1], e[1]))
+		if lens[k].Cmp(longest) > 0 {
+			longest = lens[k]
+		}
+	}
 	best, bestK := "", -1
 	var bestW [][2]*big.Rat
 	for k := 0; k < n; k++ {
+		if lens[k].Cmp(longest) != 0 {
+			continue
+		}
 		e := sub2(v[(k+1)%n], v[k])
 		nn := new(big.Rat).Mul(e[0], e[0])
 		nn.Add(nn, new(big.Rat).Mul(e[1], e[1]))

@@ -24,12 +24,16 @@ func (c polygonCell) simplices() [][][]*big.Rat {
 	return out
 }
 
-// frameOf returns the centre of the bounding box of the points and the
-// largest half-extent.
-func frameOf(pts [][]*big.Rat) ([]*big.Rat, *big.Rat) {
+// frameOf returns the centre of the bounding box of the points and its
+// half-extent along each axis. The frame is scaled per axis, not
+// uniformly: a sliver (aspect 30) framed uniformly fills a strip of the
+// box, on which the box's Legendre basis of degree 8 is already
+// numerically dependent; the polynomials of degree <= D are the same
+// after any affine map.
+func frameOf(pts [][]*big.Rat) ([]*big.Rat, []*big.Rat) {
 	dim := len(pts[0])
 	c := make([]*big.Rat, dim)
-	h := new(big.Rat)
+	h := make([]*big.Rat, dim)
 	for k := 0; k < dim; k++ {
 		lo, hi := pts[0][k], pts[0][k]
 		for _, p := range pts {
@@ -42,25 +46,22 @@ func frameOf(pts [][]*big.Rat) ([]*big.Rat, *big.Rat) {
 		}
 		c[k] = new(big.Rat).Add(lo, hi)
 		c[k].Quo(c[k], big.NewRat(2, 1))
-		half := new(big.Rat).Sub(hi, lo)
-		half.Quo(half, big.NewRat(2, 1))
-		if half.Cmp(h) > 0 {
-			h = half
-		}
+		h[k] = new(big.Rat).Sub(hi, lo)
+		h[k].Quo(h[k], big.NewRat(2, 1))
 	}
 	return c, h
 }
 
-func toFrame(p []*big.Rat, c []*big.Rat, h *big.Rat) []*big.Rat {
+func toFrame(p []*big.Rat, c []*big.Rat, h []*big.Rat) []*big.Rat {
 	out := make([]*big.Rat, len(p))
 	for k := range p {
 		out[k] = new(big.Rat).Sub(p[k], c[k])
-		out[k].Quo(out[k], h)
+		out[k].Quo(out[k], h[k])
 	}
 	return out
 }
 
-func (c polygonCell) framed() (cell, []*big.Rat, *big.Rat) {
+func (c polygonCell) framed() (cell, []*big.Rat, []*big.Rat) {
 	pts := make([][]*big.Rat, len(c.p.V))
 	for i := range c.p.V {
 		pts[i] = c.p.V[i][:]
@@ -137,7 +138,7 @@ func (c polyhedronCell) simplices() [][][]*big.Rat {
 	return out
 }
 
-func (c polyhedronCell) framed() (cell, []*big.Rat, *big.Rat) {
+func (c polyhedronCell) framed() (cell, []*big.Rat, []*big.Rat) {
 	pts := make([][]*big.Rat, len(c.p.V))
 	for i := range c.p.V {
 		pts[i] = c.p.V[i][:]
