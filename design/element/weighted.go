@@ -122,19 +122,21 @@ func Weighted(ctx context.Context, req Request) (*Rule, error) {
 	// direction, so that no polynomial of degree <= deg vanishes at all of
 	// them (deg+1 Gauss points would be the zeros of one).
 	nc := max(deg+2, int(math.Ceil(math.Pow(float64(3*M), 1/float64(s.Dim())))))
-	var cand *discreteWeight
-	if w != nil {
-		var err error
-		if cand, err = sampleWeight(ctx, s, w, nc, 20); err != nil {
-			return nil, err
+	candidates := func(n int) (*discreteWeight, error) {
+		if w != nil {
+			return sampleWeight(ctx, s, w, n, 20)
 		}
-	} else {
-		pr, prec, err := productNodes(ctx, s, nc, 20)
+		pr, prec, err := productNodes(ctx, s, n, 20)
 		if err != nil {
 			return nil, err
 		}
-		cand = &discreteWeight{pts: pr.pts, lambda: pr.wts, prec: prec}
+		return &discreteWeight{pts: pr.pts, lambda: pr.wts, prec: prec}, nil
 	}
+	cand, err := candidates(nc)
+	if err != nil {
+		return nil, err
+	}
+	target := (M+s.Dim())/(s.Dim()+1) + s.Dim() + 1
 	Q, C, cond, err := orthonormalize(cand, bb)
 	if err != nil {
 		return nil, fmt.Errorf("%s on the %s: %v", r.Weight, s, err)
@@ -155,6 +157,27 @@ func Weighted(ctx context.Context, req Request) (*Rule, error) {
 		}
 		tolLog2 := func(digits int) float64 { return math.Log2(bn) - float64(digits)*math.Log2(10) }
 		start = ms.thin(ctx, start, bn, prec1)
+		// As for SolveRegion: elimination from one candidate rule can
+		// stall above what the equations allow, and a product rule of
+		// another order gives another start (on the first try only).
+		for k := 1; try == 0 && k < 3 && len(start.x) > target; k++ {
+			cand2, err := candidates(nc + k)
+			if err != nil {
+				break
+			}
+			Q2, C2, _, err := orthonormalize(cand2, bb)
+			if err != nil {
+				continue
+			}
+			ms2 := &momentSystem{s: s, bb: bb, C: C2, mu: mu1}
+			s2, bn2 := ms2.subsample(Q2, cand2, prec1)
+			if len(s2.x) == 0 {
+				continue
+			}
+			if s2 = ms2.thin(ctx, s2, bn2, prec1); len(s2.x) < len(start.x) {
+				start, bn, C, ms, Q, cand = s2, bn2, C2, ms2, Q2, cand2
+			}
+		}
 		maxIter := 40 + base/5
 		r1, _, err := ms.solve(ctx, start, prec1, tolLog2(base+guard/2), maxIter)
 		if err != nil {
