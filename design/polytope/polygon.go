@@ -77,18 +77,38 @@ func (p *Polygon) Validate() error {
 			return fmt.Errorf("vertex %d lies on the line through its neighbours %d and %d (a degenerate corner)", i+1, (i+n-1)%n+1, (i+1)%n+1)
 		}
 	}
+	if err := crossingEdges(p.V); err != nil {
+		return err
+	}
+	if signedArea2(p.V).Sign() == 0 {
+		return fmt.Errorf("the polygon has zero area")
+	}
+	return nil
+}
+
+// crossingEdges reports the first two non-adjacent edges of the closed
+// outline v that share a point, and adjacent edges that fold back onto
+// each other.
+func crossingEdges(v [][2]*big.Rat) error {
+	n := len(v)
+	for i := 0; i < n; i++ {
+		a, b, c := v[(i+n-1)%n], v[i], v[(i+1)%n]
+		u, w := sub2(a, b), sub2(c, b)
+		dot := new(big.Rat).Mul(u[0], w[0])
+		dot.Add(dot, new(big.Rat).Mul(u[1], w[1]))
+		if cross2(a, b, c).Sign() == 0 && dot.Sign() > 0 {
+			return fmt.Errorf("edges %d and %d fold back onto each other at vertex %d", (i+n-1)%n+1, i+1, i+1)
+		}
+	}
 	for i := 0; i < n; i++ {
 		for j := i + 2; j < n; j++ {
 			if i == 0 && j == n-1 {
 				continue // adjacent through vertex 1
 			}
-			if segmentsMeet(p.V[i], p.V[(i+1)%n], p.V[j], p.V[(j+1)%n]) {
+			if segmentsMeet(v[i], v[(i+1)%n], v[j], v[(j+1)%n]) {
 				return fmt.Errorf("edges %d (vertices %d-%d) and %d (vertices %d-%d) intersect: the polygon is not simple", i+1, i+1, (i+1)%n+1, j+1, j+1, (j+1)%n+1)
 			}
 		}
-	}
-	if signedArea2(p.V).Sign() == 0 {
-		return fmt.Errorf("the polygon has zero area")
 	}
 	return nil
 }

@@ -67,6 +67,14 @@ func (p *Polyhedron) Validate() error {
 	if len(p.F) < 4 {
 		return fmt.Errorf("a polyhedron needs at least 4 faces, this one has %d", len(p.F))
 	}
+	seen := make(map[string]int, len(p.V))
+	for i, v := range p.V {
+		k := v[0].RatString() + " " + v[1].RatString() + " " + v[2].RatString()
+		if j, ok := seen[k]; ok {
+			return fmt.Errorf("vertices %d and %d are the same point", j+1, i+1)
+		}
+		seen[k] = i
+	}
 	used := make([]bool, len(p.V))
 	type edge struct{ a, b int }
 	dir := map[edge]int{}
@@ -88,6 +96,9 @@ func (p *Polyhedron) Validate() error {
 			if dot3(sub3(vs[k], vs[0]), n).Sign() != 0 {
 				return fmt.Errorf("face %d is not planar: vertex %d is off the plane of the others", f+1, face[k]+1)
 			}
+		}
+		if err := crossingEdges(project(vs, n)); err != nil {
+			return fmt.Errorf("face %d is not a simple polygon: %v", f+1, err)
 		}
 		for k, a := range face {
 			b := face[(k+1)%len(face)]
@@ -150,13 +161,7 @@ func (p *Polyhedron) boundaryTriangles() [][3]vec3 {
 			}
 		}
 		n := newell(vs)
-		// Drop the coordinate of the largest normal component.
-		drop := 0
-		for k := 1; k < 3; k++ {
-			if new(big.Rat).Abs(n[k]).Cmp(new(big.Rat).Abs(n[drop])) > 0 {
-				drop = k
-			}
-		}
+		drop := dominant(n)
 		ax := [2]int{(drop + 1) % 3, (drop + 2) % 3}
 		flat := make([][2]*big.Rat, len(vs))
 		back := map[string]vec3{}
@@ -180,6 +185,29 @@ func (p *Polyhedron) boundaryTriangles() [][3]vec3 {
 			}
 			out = append(out, tri)
 		}
+	}
+	return out
+}
+
+// dominant is the axis of the largest component of n: the coordinate a
+// face with normal n is projected along.
+func dominant(n vec3) int {
+	drop := 0
+	for k := 1; k < 3; k++ {
+		if new(big.Rat).Abs(n[k]).Cmp(new(big.Rat).Abs(n[drop])) > 0 {
+			drop = k
+		}
+	}
+	return drop
+}
+
+// project drops the dominant coordinate of a planar face's vertices
+// (a one-to-one map of its plane).
+func project(vs []vec3, n vec3) [][2]*big.Rat {
+	drop := dominant(n)
+	out := make([][2]*big.Rat, len(vs))
+	for i, v := range vs {
+		out[i] = [2]*big.Rat{v[(drop+1)%3], v[(drop+2)%3]}
 	}
 	return out
 }
