@@ -68,7 +68,9 @@ digits of decimal moments limit --digits.`,
   quadwright element --shape triangle --degree 4 --weight x --digits 20
   quadwright element --shape quadrilateral --degree 5 --weight "exp(x)*exp(y)" --format json -o expq5.json
   printf '0 0 1/2\n1 0 1/6\n0 1 1/6\n2 0 1/12\n1 1 1/24\n0 2 1/12\n' > tri-moments.txt
-  quadwright element --shape triangle --degree 2 --moments tri-moments.txt --digits 30`,
+  quadwright element --shape triangle --degree 2 --moments tri-moments.txt --digits 30
+  printf '0 0\n2 0\n2 1\n1 1\n1 2\n0 2\n' > lshape.txt
+  quadwright element --polygon lshape.txt --degree 6`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			return runElement(cmd.Context(), o, cmd)
