@@ -43,6 +43,8 @@ type Domain struct {
 	Shape    string     `json:"shape"`
 	Interval []string   `json:"interval,omitempty"`
 	Vertices [][]string `json:"vertices,omitempty"`
+	// Faces, for a polyhedron, lists each face's 1-based vertex indices.
+	Faces [][]int `json:"faces,omitempty"`
 }
 
 // Node is one node: a single coordinate (written as a JSON string) or, for

@@ -125,6 +125,9 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 	if err != nil {
 		return err
 	}
+	if done, err := runPolytopeAudit(ctx, o, file, path, format, checks, opt.MaxDegree, cmd); done {
+		return err
+	}
 	shape, isElement, err := file.ElementShape(path)
 	if err != nil {
 		return err

@@ -26,6 +26,12 @@
 //
 //	go run ./design/element/cmd/symcatalogue -shape SHAPE -o design/element/catalogue/SHAPE.json
 //
+// SolveRegion serves domains other than the reference elements (the
+// user's polygons and polyhedra of package design/polytope): the weighted
+// route (Tchakaloff compression, point elimination, Gauss-Newton at two
+// precisions) on a Region given by its simplices, inside test and exact
+// moments.
+//
 // Searches never run in the default tests beyond low degrees;
 // BenchmarkTriangleDegree20Search times one.
 package element

@@ -6,8 +6,6 @@ import (
 	"math"
 	"math/big"
 
-	"gonum.org/v1/gonum/mat"
-
 	"quadwright/moments"
 	"quadwright/precision"
 )
@@ -124,19 +122,21 @@ func Weighted(ctx context.Context, req Request) (*Rule, error) {
 	// direction, so that no polynomial of degree <= deg vanishes at all of
 	// them (deg+1 Gauss points would be the zeros of one).
 	nc := max(deg+2, int(math.Ceil(math.Pow(float64(3*M), 1/float64(s.Dim())))))
-	var cand *discreteWeight
-	if w != nil {
-		var err error
-		if cand, err = sampleWeight(ctx, s, w, nc, 20); err != nil {
-			return nil, err
+	candidates := func(n int) (*discreteWeight, error) {
+		if w != nil {
+			return sampleWeight(ctx, s, w, n, 20)
 		}
-	} else {
-		pr, prec, err := productNodes(ctx, s, nc, 20)
+		pr, prec, err := productNodes(ctx, s, n, 20)
 		if err != nil {
 			return nil, err
 		}
-		cand = &discreteWeight{pts: pr.pts, lambda: pr.wts, prec: prec}
+		return &discreteWeight{pts: pr.pts, lambda: pr.wts, prec: prec}, nil
 	}
+	cand, err := candidates(nc)
+	if err != nil {
+		return nil, err
+	}
+	target := (M+s.Dim())/(s.Dim()+1) + s.Dim() + 1
 	Q, C, cond, err := orthonormalize(cand, bb)
 	if err != nil {
 		return nil, fmt.Errorf("%s on the %s: %v", r.Weight, s, err)
@@ -151,41 +151,32 @@ func Weighted(ctx context.Context, req Request) (*Rule, error) {
 			return nil, err
 		}
 		ms := &momentSystem{s: s, bb: bb, C: C, mu: mu1}
-		b := make([]float64, M)
-		mu64 := make([]float64, M)
-		for j := range mu64 {
-			mu64[j], _ = mu1[j].Float64()
-		}
-		mat.NewVecDense(M, b).MulVec(C.T(), mat.NewVecDense(M, mu64))
-		bn := 0.0
-		for _, v := range b {
-			bn += v * v
-		}
-		bn = math.Sqrt(bn)
-		var QT mat.Dense
-		QT.CloneFrom(Q.T())
-		v, _ := nnls(&QT, b, 1e-15, 4*M)
-		start := &wrule{}
-		for i, vi := range v {
-			if vi <= 0 {
-				continue
-			}
-			l, _ := cand.lambda[i].Float64()
-			ui := new(big.Float).SetPrec(prec1).SetFloat64(vi * math.Sqrt(l))
-			xi := make([]*big.Float, s.Dim())
-			for k := range xi {
-				xi[k] = new(big.Float).SetPrec(prec1).Set(cand.pts[i][k])
-			}
-			start.x, start.u = append(start.x, xi), append(start.u, ui)
-		}
+		start, bn := ms.subsample(Q, cand, prec1)
 		if len(start.x) == 0 {
 			return nil, fmt.Errorf("%s on the %s: no positive rule was found for its moments (are they the moments of a weight >= 0?)", r.Weight, s)
 		}
-		// Elimination runs at 128 bits to float64-level residuals; the
-		// survivors then start the solve at the working precision.
 		tolLog2 := func(digits int) float64 { return math.Log2(bn) - float64(digits)*math.Log2(10) }
-		if fewer, _, err := ms.solve(ctx, start.at(128), 128, tolLog2(13), 25); err == nil {
-			start = ms.eliminate(ctx, fewer, 128, tolLog2(13)).at(prec1)
+		start = ms.thin(ctx, start, bn, prec1)
+		// As for SolveRegion: elimination from one candidate rule can
+		// stall above what the equations allow, and a product rule of
+		// another order gives another start (on the first try only).
+		for k := 1; try == 0 && k < 3 && len(start.x) > target; k++ {
+			cand2, err := candidates(nc + k)
+			if err != nil {
+				break
+			}
+			Q2, C2, _, err := orthonormalize(cand2, bb)
+			if err != nil {
+				continue
+			}
+			ms2 := &momentSystem{s: s, bb: bb, C: C2, mu: mu1}
+			s2, bn2 := ms2.subsample(Q2, cand2, prec1)
+			if len(s2.x) == 0 {
+				continue
+			}
+			if s2 = ms2.thin(ctx, s2, bn2, prec1); len(s2.x) < len(start.x) {
+				start, bn, C, ms, Q, cand = s2, bn2, C2, ms2, Q2, cand2
+			}
 		}
 		maxIter := 40 + base/5
 		r1, _, err := ms.solve(ctx, start, prec1, tolLog2(base+guard/2), maxIter)

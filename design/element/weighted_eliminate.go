@@ -3,6 +3,7 @@ package element
 import (
 	"context"
 	"math"
+	"math/big"
 	"sort"
 )
 
@@ -19,16 +20,15 @@ const eliminationWork = 1.2e11
 // (2010): the points are tried in increasing order of significance u_i
 // |psi(x_i)|^2 (the share of the weighted basis the point carries), each
 // removal followed by damped Gauss-Newton with minimum-norm steps from the
-// remaining points, during which a point whose weight would collapse or
-// which would leave the element is dropped as well (solveDropping). A
+// remaining points, during which a point whose weight would collapse is
+// dropped as well (solveDropping). Every point is tried before giving up. A
 // rule of n points has (dim+1) n unknowns, so no removal is tried below
 // ceil(M / (dim+1)) points.
 func (ms *momentSystem) eliminate(ctx context.Context, r *wrule, prec uint, tolLog2 float64) *wrule {
 	M, dim := ms.bb.size(), ms.s.Dim()
 	minPts := (M + dim) / (dim + 1)
-	per := 24 * float64(M) * float64(M) * float64((dim+1)*len(r.x)) // one attempt, at most 12 steps of QR
+	per := 24 * float64(M) * float64(M) * float64((dim+1)*len(r.x)) // one attempt, about 12 steps of QR
 	budget := int(math.Min(float64(4*M), math.Max(8, eliminationWork/per)))
-	const triesPerRound = 8
 	// Far above the fewest points possible, the least significant points
 	// are first removed in batches (halved on failure), which saves most
 	// of the attempts; single removals finish the job.
@@ -54,11 +54,22 @@ func (ms *momentSystem) eliminate(ctx context.Context, r *wrule, prec uint, tolL
 			continue
 		}
 		removed := false
-		for t := 0; t < triesPerRound && t < len(order) && budget > 0; t++ {
+		for t := 0; t < len(order) && budget > 0; t++ {
 			budget--
-			if res, _, err := ms.solveDropping(ctx, r.without(order[t]), prec, tolLog2, 12, minPts); err == nil {
+			if res, _, err := ms.solveDropping(ctx, r.without(order[t]), prec, tolLog2, elimIter, minPts); err == nil {
 				r, removed = res, true
 				break
+			}
+		}
+		for _, pr := range closestPairs(r, mergeTries) {
+			if removed || budget <= 0 {
+				break
+			}
+			budget--
+			if m := r.merged(pr[0], pr[1], prec); m != nil && ms.insideAll(m) {
+				if res, _, err := ms.solveDropping(ctx, m, prec, tolLog2, elimIter, minPts); err == nil {
+					r, removed = res, true
+				}
 			}
 		}
 		if !removed {
@@ -66,6 +77,71 @@ func (ms *momentSystem) eliminate(ctx context.Context, r *wrule, prec uint, tolL
 		}
 	}
 	return r
+}
+
+// mergeTries is how many of the closest pairs of nodes are tried for a
+// merge once no single removal succeeds.
+const mergeTries = 8
+
+// closestPairs returns up to k pairs of nodes in increasing distance.
+func closestPairs(r *wrule, k int) [][2]int {
+	n := len(r.x)
+	type pair struct {
+		i, j int
+		d    float64
+	}
+	var ps []pair
+	for i := 0; i < n; i++ {
+		for j := i + 1; j < n; j++ {
+			d := 0.0
+			for c := range r.x[i] {
+				a, _ := r.x[i][c].Float64()
+				b, _ := r.x[j][c].Float64()
+				d += (a - b) * (a - b)
+			}
+			ps = append(ps, pair{i, j, d})
+		}
+	}
+	sort.SliceStable(ps, func(a, b int) bool { return ps[a].d < ps[b].d })
+	var out [][2]int
+	for _, p := range ps[:min(k, len(ps))] {
+		out = append(out, [2]int{p.i, p.j})
+	}
+	return out
+}
+
+// merged replaces nodes i and j by one node at their weighted mean
+// carrying the sum of their weights: it keeps the mass and the first
+// moments, and is the usual second move of point elimination when
+// removing a node alone fails.
+func (r *wrule) merged(i, j int, prec uint) *wrule {
+	out := r.without(i, j)
+	u := new(big.Float).SetPrec(prec).Add(r.u[i], r.u[j])
+	if u.Sign() <= 0 {
+		return nil
+	}
+	x := make([]*big.Float, len(r.x[i]))
+	for c := range x {
+		a := new(big.Float).SetPrec(prec).Mul(r.u[i], r.x[i][c])
+		b := new(big.Float).SetPrec(prec).Mul(r.u[j], r.x[j][c])
+		x[c] = a.Add(a, b).Quo(a, u)
+	}
+	out.x, out.u = append(out.x, x), append(out.u, u)
+	return out
+}
+
+// insideAll reports whether every node of r is in the open domain.
+func (ms *momentSystem) insideAll(r *wrule) bool {
+	p := make([]float64, ms.s.Dim())
+	for i := range r.x {
+		for k := range p {
+			p[k], _ = r.x[i][k].Float64()
+		}
+		if !ms.insideOpen(p) {
+			return false
+		}
+	}
+	return true
 }
 
 // significance is u_i |psi(x_i)|^2 for every node, in float64.
@@ -113,3 +189,5 @@ func (r *wrule) without(drop ...int) *wrule {
 	}
 	return out
 }
+
+var elimIter = 12

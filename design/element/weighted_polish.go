@@ -43,6 +43,25 @@ type momentSystem struct {
 	bb *boxBasis
 	C  *mat.Dense // M x M
 	mu []*big.Float
+	// inside, when not nil, is the open domain the nodes must stay in
+	// (SolveRegion's region, in the coordinates of the box s); nil means
+	// the element s itself.
+	inside func(x []float64) bool
+	// evals caches the basis evaluator by precision: building one costs
+	// as much as a residual at low degree.
+	evals map[uint]*realEval
+}
+
+func (ms *momentSystem) evalAt(prec uint) *realEval {
+	if re, ok := ms.evals[prec]; ok {
+		return re
+	}
+	if ms.evals == nil {
+		ms.evals = map[uint]*realEval{}
+	}
+	re := ms.bb.newRealEval(prec)
+	ms.evals[prec] = re
+	return re
 }
 
 // residual returns C^T (sum_i u_i phi(x_i) - mu) in float64, scaled by
@@ -52,7 +71,7 @@ type momentSystem struct {
 func (ms *momentSystem) residual(r *wrule, prec uint) (F []float64, shift int, log2Norm float64) {
 	M := ms.bb.size()
 	dim := ms.s.Dim()
-	re := ms.bb.newRealEval(prec)
+	re := ms.evalAt(prec)
 	sum := precision.NewRealSlice(M, prec)
 	val := precision.NewRealSlice(M, prec)
 	x := precision.NewRealSlice(dim, prec)
@@ -145,15 +164,22 @@ func minNorm(J *mat.Dense, rhs []float64) ([]float64, bool) {
 
 // step returns r moved by t 2^-shift times the correction d (relative
 // weight changes first, then node coordinates), or nil when a weight would fall
-// to half its value or below or a node would leave the open element, with
-// the index of the first such node.
+// to zero or below or a node would leave the open domain, with the index
+// of the first such node.
 func (ms *momentSystem) step(r *wrule, d []float64, t float64, shift int, prec uint) (*wrule, int) {
+	c, i, _ := ms.stepWhy(r, d, t, shift, prec)
+	return c, i
+}
+
+// stepWhy is step, also saying whether the node i stopped it by its
+// weight (rather than by leaving the domain).
+func (ms *momentSystem) stepWhy(r *wrule, d []float64, t float64, shift int, prec uint) (*wrule, int, bool) {
 	n, dim := len(r.x), ms.s.Dim()
 	out := &wrule{x: make([][]*big.Float, n), u: make([]*big.Float, n)}
 	p := make([]float64, dim)
 	for i := 0; i < n; i++ {
-		if math.Ldexp(t*d[i], -shift) <= -0.5 {
-			return nil, i
+		if math.Ldexp(t*d[i], -shift) <= -1 {
+			return nil, i, true
 		}
 		// u + e u keeps every bit of e, where u (1 + e) would round e
 		// to the 53 bits of 1 + e.
@@ -167,11 +193,11 @@ func (ms *momentSystem) step(r *wrule, d []float64, t float64, shift int, prec u
 			out.x[i][k] = v.Add(v, r.x[i][k])
 			p[k], _ = out.x[i][k].Float64()
 		}
-		if !insideOpen64(ms.s, p) {
-			return nil, i
+		if !ms.insideOpen(p) {
+			return nil, i, false
 		}
 	}
-	return out, -1
+	return out, -1, false
 }
 
 // solve runs damped Gauss-Newton with minimum-norm steps from r at prec
@@ -186,9 +212,10 @@ func (ms *momentSystem) solve(ctx context.Context, r *wrule, prec uint, tolLog2 
 }
 
 // solveDropping is solve, except that while the rule has more than
-// minPts nodes, a full step that would drive a weight to half its value or
-// below, or a node out of the element, removes that node instead (point
-// elimination lets such points go).
+// minPts nodes, a full step that would drive a weight to zero or below
+// removes that node instead (point elimination lets such points go). A
+// node that a step would take out of the domain is kept: dropping those
+// too cascaded, on polygon rules, down to a singular system.
 func (ms *momentSystem) solveDropping(ctx context.Context, r *wrule, prec uint, tolLog2 float64, maxIter, minPts int) (*wrule, float64, error) {
 	F, shift, ln := ms.residual(r, prec)
 	for it := 0; ln > tolLog2; it++ {
@@ -201,30 +228,52 @@ func (ms *momentSystem) solveDropping(ctx context.Context, r *wrule, prec uint, 
 		J := ms.jacobian(r)
 		neg := make([]float64, len(F))
 		floats.ScaleTo(neg, -1, F)
-		d, ok := minNorm(J, neg)
-		if !ok {
-			return nil, ln, fmt.Errorf("the moment equations became singular at %d points", len(r.x))
-		}
 		accepted := false
-		for t := 1.0; t > 1e-6; t /= 2 {
-			c, dying := ms.step(r, d, t, shift, prec)
-			if c == nil && t == 1 && dying >= 0 && len(r.x) > minPts {
-				r = r.without(dying)
-				F, shift, ln = ms.residual(r, prec)
-				accepted = true
+		// A node pressed against the boundary blocks every step that
+		// moves it outward, however short: its coordinates are then
+		// frozen for this step (their columns of J zeroed) and the step
+		// recomputed, so that the others and the weights carry it.
+		frozen := map[int]bool{}
+		for !accepted {
+			d, ok := minNorm(J, neg)
+			if !ok {
+				return nil, ln, fmt.Errorf("the moment equations became singular at %d points", len(r.x))
+			}
+			blocker := -1
+			for t := 1.0; t > 1e-6; t /= 2 {
+				c, dying, byWeight := ms.stepWhy(r, d, t, shift, prec)
+				if c == nil && t == 1 && dying >= 0 && byWeight && len(r.x) > minPts {
+					r = r.without(dying)
+					F, shift, ln = ms.residual(r, prec)
+					accepted = true
+					break
+				}
+				if c == nil {
+					if blocker < 0 {
+						blocker = dying
+					}
+					continue
+				}
+				F2, shift2, ln2 := ms.residual(c, prec)
+				if ln2 < ln {
+					r, F, shift, ln, accepted = c, F2, shift2, ln2, true
+					break
+				}
+			}
+			if accepted {
 				break
 			}
-			if c == nil {
-				continue
+			if blocker < 0 || frozen[blocker] || len(frozen) >= len(r.x) {
+				return nil, ln, fmt.Errorf("the moment equations stalled at residual 2^%.0f (asked 2^%.0f) with positive weights and interior nodes", ln, tolLog2)
 			}
-			F2, shift2, ln2 := ms.residual(c, prec)
-			if ln2 < ln {
-				r, F, shift, ln, accepted = c, F2, shift2, ln2, true
-				break
+			frozen[blocker] = true
+			n, dim := len(r.x), ms.s.Dim()
+			rows, _ := J.Dims()
+			for k := 0; k < dim; k++ {
+				for j := 0; j < rows; j++ {
+					J.Set(j, n+blocker*dim+k, 0)
+				}
 			}
-		}
-		if !accepted {
-			return nil, ln, fmt.Errorf("the moment equations stalled at residual 2^%.0f (asked 2^%.0f) with positive weights and interior nodes", ln, tolLog2)
 		}
 	}
 	return r, ln, nil
