@@ -72,7 +72,7 @@ func out(lo, hi float64, k int) Span {
 
 func (a Span) add(b Span) Span { return out(a.Lo+b.Lo, a.Hi+b.Hi, 1) }
 func (a Span) sub(b Span) Span { return out(a.Lo-b.Hi, a.Hi-b.Lo, 1) }
-func (a Span) neg() Span           { return Span{-a.Hi, -a.Lo} }
+func (a Span) neg() Span       { return Span{-a.Hi, -a.Lo} }
 
 func (a Span) mul(b Span) Span {
 	if a.Lo == 0 && a.Hi == 0 || b.Lo == 0 && b.Hi == 0 {

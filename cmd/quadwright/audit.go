@@ -119,6 +119,9 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 	if err != nil {
 		return err
 	}
+	if file.IsLevelSet() {
+		return runLevelSetAudit(ctx, o, path, format, checks, cmd)
+	}
 	shape, isElement, err := file.ElementShape(path)
 	if err != nil {
 		return err

@@ -18,6 +18,7 @@ type elementOptions struct {
 	product, lobatto                      bool
 	allowNegative, allowOutside           bool
 	weight, momentsFile                   string
+	ls                                    levelSetOptions
 }
 
 func newElementCommand() *cobra.Command {
@@ -67,7 +68,8 @@ digits of decimal moments limit --digits.`,
   quadwright element --shape triangle --degree 4 --weight x --digits 20
   quadwright element --shape quadrilateral --degree 5 --weight "exp(x)*exp(y)" --format json -o expq5.json
   printf '0 0 1/2\n1 0 1/6\n0 1 1/6\n2 0 1/12\n1 1 1/24\n0 2 1/12\n' > tri-moments.txt
-  quadwright element --shape triangle --degree 2 --moments tri-moments.txt --digits 30`,
+  quadwright element --shape triangle --degree 2 --moments tri-moments.txt --digits 30
+  quadwright element --shape quadrilateral --level-set "x^2+y^2-0.25" --degree 10 --format json -o disc.json`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			return runElement(cmd.Context(), o, cmd)
@@ -85,12 +87,16 @@ digits of decimal moments limit --digits.`,
 	f.StringVar(&o.momentsFile, "moments", "", "file of the weight's monomial moments, lines \"a b [c] value\" (value: the integral of x^a y^b z^c w, decimal or p/q), instead of --weight")
 	f.BoolVar(&o.allowNegative, "allow-negative", false, "accept rules with negative weights (every rule built now has positive weights)")
 	f.BoolVar(&o.allowOutside, "allow-outside", false, "accept rules with nodes outside the element (every rule built now has its nodes inside)")
+	addLevelSetFlags(f, &o.ls)
 	return cmd
 }
 
 func runElement(ctx context.Context, o *elementOptions, cmd *cobra.Command) error {
 	if ctx == nil {
 		ctx = context.Background()
+	}
+	if o.ls.asked() {
+		return runLevelSetElement(ctx, o, cmd)
 	}
 	format, err := parseFormat(o.format)
 	if err != nil {
