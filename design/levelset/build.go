@@ -51,6 +51,9 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 		return nil, err
 	}
 	nodes, wts, bd := points(g, req.Side, req.Order)
+	if bd.overflow {
+		return nil, fmt.Errorf("level set %q: needs more than %d subdivisions of the element to resolve; it oscillates or turns too sharply to integrate at this order", req.LevelSet, maxBoxes)
+	}
 	if len(nodes) == 0 {
 		return nil, g.emptyError(req)
 	}

@@ -79,6 +79,10 @@ func (bd *builder) rootsOn(f *fn, k int, free []int, p [3]float64, a, c float64,
 	}
 	var rec func(lo, hi, hlo, hhi float64, depth int)
 	rec = func(lo, hi, hlo, hhi float64, depth int) {
+		if bd.lineWork++; bd.lineWork > maxLineWork {
+			bd.overflow = true
+			return
+		}
 		var bx [3]span
 		for _, i := range free {
 			bx[i] = span{Lo: p[i], Hi: p[i]}

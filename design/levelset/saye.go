@@ -52,6 +52,8 @@ type builder struct {
 	// theorem could not be confirmed in any direction; forced counts the
 	// boxes at maxDepth treated without that guarantee.
 	subdivided, forced int
+	overflow           bool // more than maxBoxes splits: the rule is refused
+	lineWork           int
 }
 
 // integrate emits the rule on the box b over the coordinates free for the
@@ -77,6 +79,11 @@ func (bd *builder) integrate(free []int, b [3]span, fs []fn, surface bool, depth
 			continue
 		}
 		switch {
+		case v.Lo == 0 && v.Hi == 0:
+			// Identically zero on the box (a face function of an
+			// interface along that face): the sign test falls to the
+			// lines, whose end roots carry it.
+			continue
 		case v.Lo >= 0 && f.s < 0, v.Hi <= 0 && f.s > 0:
 			return
 		case v.Lo >= 0 || v.Hi <= 0:
@@ -94,14 +101,14 @@ func (bd *builder) integrate(free []int, b [3]span, fs []fn, surface bool, depth
 		bd.line(free[0], free, b, p, 1, fs, surface, true, emit)
 		return
 	}
-	k, ratio, sig := bd.heightDirection(free, b, fs)
+	k, ratio, sig := bd.heightDirection(free, b, fs, surface)
 	mono := !math.IsInf(ratio, 1)
 	// A steep height function (the slope bound |grad phi| / |d phi/du_k|
 	// large over the box) has its vertical tangent close by, a
 	// square-root singularity just outside the box that slows the
 	// convergence of the next level's Gauss rules; smaller boxes move it
 	// relatively further away.
-	if (!mono || ratio > bd.maxSlope) && depth < bd.maxDepth {
+	if (!mono || ratio > bd.maxSlope) && depth < bd.maxDepth && !bd.overflow {
 		bd.subdivided++
 		bd.split(free, b, fs, surface, depth, emit)
 		return
@@ -143,7 +150,7 @@ func (bd *builder) integrate(free []int, b [3]span, fs []fn, surface bool, depth
 // function is monotone along it over the whole box (its partial derivative
 // of one sign, by interval arithmetic), with the signs. When k fails,
 // another direction that passes is taken.
-func (bd *builder) heightDirection(free []int, b [3]span, fs []fn) (int, float64, []int) {
+func (bd *builder) heightDirection(free []int, b [3]span, fs []fn, surface bool) (int, float64, []int) {
 	var c [3]float64
 	for _, i := range free {
 		c[i] = 0.5 * (b[i].Lo + b[i].Hi)
@@ -172,11 +179,11 @@ func (bd *builder) heightDirection(free []int, b [3]span, fs []fn) (int, float64
 		_, gu := bd.g.evalSpan(f.spanAt(b, free))
 		grads = append(grads, gu)
 	}
-	best, bestRatio := -1, math.Inf(1)
+	best, bestRatio, bestIndep := -1, math.Inf(1), len(fs)+1
 	var bestSig []int
 	for _, k := range order {
 		sig := make([]int, len(fs))
-		ratio, ok := 0.0, true
+		ratio, ok, indep := 0.0, true, 0
 		for i := range fs {
 			d := grads[i][k]
 			// Strictly monotone: a derivative vanishing on the box, even
@@ -190,8 +197,11 @@ func (bd *builder) heightDirection(free []int, b [3]span, fs []fn) (int, float64
 				sig[i] = 1
 			case d.Hi < 0:
 				sig[i] = -1
-			case d.Lo == 0 && d.Hi == 0:
-				continue // independent of x_k on the box
+			case d.Lo == 0 && d.Hi == 0 && !surface:
+				// independent of x_k on the box: usable, but any
+				// direction along which something varies is better
+				indep++
+				continue
 			default:
 				ok = false
 			}
@@ -203,8 +213,8 @@ func (bd *builder) heightDirection(free []int, b [3]span, fs []fn) (int, float64
 			// vertical tangent of the height function, may lie.
 			ratio = math.Max(ratio, (d.Hi-d.Lo)/math.Min(math.Abs(d.Lo), math.Abs(d.Hi)))
 		}
-		if ok && ratio < bestRatio {
-			best, bestRatio, bestSig = k, ratio, sig
+		if ok && (indep < bestIndep || indep == bestIndep && ratio < bestRatio) {
+			best, bestRatio, bestSig, bestIndep = k, ratio, sig, indep
 		}
 	}
 	if best >= 0 {
@@ -213,11 +223,23 @@ func (bd *builder) heightDirection(free []int, b [3]span, fs []fn) (int, float64
 	return order[0], math.Inf(1), make([]int, len(fs))
 }
 
+// maxBoxes bounds the splits of one rule: a level set that needs more
+// (sin(1/x) near x = 0) is refused rather than left to run for hours.
+const maxBoxes = 5000
+
+// maxLineWork bounds the interval evaluations of the root searches along
+// lines, for the same reason.
+const maxLineWork = 2000000
+
 // split halves the box across its widest free side (the first of the
 // widest, in the order of the height-direction scores) and integrates on
 // both halves. Saye splits into 2^d boxes at once; halving one side at a
 // time reaches the same boxes where they are needed and fewer elsewhere.
 func (bd *builder) split(free []int, b [3]span, fs []fn, surface bool, depth int, emit emitter) {
+	if bd.subdivided > maxBoxes {
+		bd.overflow = true
+		return
+	}
 	i := free[0]
 	for _, j := range free {
 		if b[j].Hi-b[j].Lo > b[i].Hi-b[i].Lo {
