@@ -231,37 +231,32 @@ func (g *geom) compare(nodes [][3]float64, wts []float64, hn [][3]float64, hw []
 			}
 		}
 	}
-	tests := func(p [3]float64) []float64 {
-		var xi [3]float64
-		for k := 0; k < g.dim; k++ {
-			xi[k] = (2*p[k] - lo[k] - hi[k]) / (hi[k] - lo[k])
-		}
-		out := []float64{1}
-		for k := 0; k < g.dim; k++ {
-			out = append(out, xi[k])
-		}
-		for k := 0; k < g.dim; k++ {
-			for j := k; j < g.dim; j++ {
-				out = append(out, xi[k]*xi[j])
-			}
-		}
-		return out
-	}
+	// The test integrands 1, xi_k, xi_k xi_j (at most 10 in 3-D).
 	sum := func(ns [][3]float64, ws []float64) []float64 {
-		var s []float64
+		s := make([]float64, 1+g.dim+g.dim*(g.dim+1)/2)
 		for i, p := range ns {
-			t := tests(p)
-			if s == nil {
-				s = make([]float64, len(t))
+			var xi [3]float64
+			for k := 0; k < g.dim; k++ {
+				xi[k] = (2*p[k] - lo[k] - hi[k]) / (hi[k] - lo[k])
 			}
-			for j := range t {
-				s[j] += ws[i] * t[j]
+			w := ws[i]
+			s[0] += w
+			m := 1
+			for k := 0; k < g.dim; k++ {
+				s[m] += w * xi[k]
+				m++
+			}
+			for k := 0; k < g.dim; k++ {
+				for j := k; j < g.dim; j++ {
+					s[m] += w * xi[k] * xi[j]
+					m++
+				}
 			}
 		}
 		return s
 	}
 	a, b := sum(nodes, wts), sum(hn, hw)
-	if len(a) == 0 || len(b) == 0 || b[0] == 0 {
+	if len(nodes) == 0 || len(hn) == 0 || b[0] == 0 {
 		return math.Inf(1)
 	}
 	e := 0.0

@@ -108,11 +108,24 @@ func (bd *builder) rootsOn(f *fn, k int, free []int, p [3]float64, a, c float64,
 	// A zero met exactly at a bisection point is reported by both halves.
 	mine := roots[n0:]
 	sort.Float64s(mine)
-	out := roots[:n0]
+	var uniq []float64
 	for i, t := range mine {
 		if i == 0 || t != mine[i-1] {
-			out = append(out, t)
+			uniq = append(uniq, t)
 		}
+	}
+	// Two zeros closer than 1e-6 of the segment with the function within
+	// rounding of 0 between them are a tangency that rounding split (a
+	// circle touching a face, phi there a square plus a constant that
+	// cancels to +-1e-17): no cut. Tolerances tuned on the tangent cases.
+	scale := math.Max(1, math.Max(math.Abs(h(a)), math.Abs(h(c))))
+	out := roots[:n0]
+	for i := 0; i < len(uniq); i++ {
+		if i+1 < len(uniq) && uniq[i+1]-uniq[i] < 1e-6*(c-a) && math.Abs(h(0.5*(uniq[i]+uniq[i+1]))) <= 1e-13*scale {
+			i++
+			continue
+		}
+		out = append(out, uniq[i])
 	}
 	return out
 }

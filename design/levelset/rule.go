@@ -176,4 +176,4 @@ func points(g *geom, side Side, q int) (nodes [][3]float64, wts []float64, bd *b
 // of its smallest size there, that a box keeps before it is split; tuned
 // on the shifted discs and balls of the tests (smaller costs points,
 // larger slows the convergence near vertical tangents).
-var slopeBound = 2.0
+var slopeBound = 1.5

@@ -211,7 +211,18 @@ func (bd *builder) heightDirection(free []int, b [3]span, fs []fn, surface bool)
 			// The variation of d phi/du_k over the box against its
 			// smallest size: how near (in box widths) its zero, the
 			// vertical tangent of the height function, may lie.
-			ratio = math.Max(ratio, (d.Hi-d.Lo)/math.Min(math.Abs(d.Lo), math.Abs(d.Hi)))
+			dmin := math.Min(math.Abs(d.Lo), math.Abs(d.Hi))
+			ratio = math.Max(ratio, (d.Hi-d.Lo)/dmin)
+			if surface {
+				// The area element |grad phi| / |d phi/du_k| itself
+				// must stay moderate for the surface weights.
+				n := 0.0
+				for _, j := range free {
+					m := math.Max(math.Abs(grads[i][j].Lo), math.Abs(grads[i][j].Hi))
+					n += m * m
+				}
+				ratio = math.Max(ratio, math.Sqrt(n)/dmin/surfaceSlope)
+			}
 		}
 		if ok && (indep < bestIndep || indep == bestIndep && ratio < bestRatio) {
 			best, bestRatio, bestSig, bestIndep = k, ratio, sig, indep
@@ -222,6 +233,10 @@ func (bd *builder) heightDirection(free []int, b [3]span, fs []fn, surface bool)
 	}
 	return order[0], math.Inf(1), make([]int, len(fs))
 }
+
+// surfaceSlope scales the area-element bound of surface rules against
+// slopeBound (tuned on the tangent and through-vertex circles of the tests).
+var surfaceSlope = 2.0
 
 // maxBoxes bounds the splits of one rule: a level set that needs more
 // (sin(1/x) near x = 0) is refused rather than left to run for hours.
