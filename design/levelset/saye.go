@@ -240,11 +240,11 @@ var surfaceSlope = 2.0
 
 // maxBoxes bounds the splits of one rule: a level set that needs more
 // (sin(1/x) near x = 0) is refused rather than left to run for hours.
-const maxBoxes = 5000
+const maxBoxes = 2000
 
 // maxLineWork bounds the interval evaluations of the root searches along
 // lines, for the same reason.
-const maxLineWork = 2000000
+const maxLineWork = 300000
 
 // split halves the box across its widest free side (the first of the
 // widest, in the order of the height-direction scores) and integrates on
