@@ -57,7 +57,9 @@ func FuzzGradSpan(f *testing.F) {
 				return math.IsNaN(a) || math.IsInf(a, 0) || (s.Lo <= a && a <= s.Hi) || math.IsNaN(s.Lo) || math.IsNaN(s.Hi)
 			}
 			// Grad64 rounds too: allow its own few ulps of slack.
-			slack := func(s Span) Span { return Span{s.Lo - 1e-9*math.Abs(s.Lo) - 1e-300, s.Hi + 1e-9*math.Abs(s.Hi) + 1e-300} }
+			slack := func(s Span) Span {
+				return Span{s.Lo - 1e-9*math.Abs(s.Lo) - 1e-300, s.Hi + 1e-9*math.Abs(s.Hi) + 1e-300}
+			}
 			if !in(slack(v), w) {
 				t.Fatalf("%q on [%v,%v]^2: value %v at %v outside [%v, %v]", src, lo, hi, w, pt, v.Lo, v.Hi)
 			}
