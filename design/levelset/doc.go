@@ -10,10 +10,11 @@
 // over the whole box (so the implicit function theorem makes the interface
 // a graph over the other coordinates) the problem reduces by one dimension
 // to the faces, with Saye's sign rules; elsewhere the box is split into
-// equal halves along every free coordinate. Along each line the roots of
+// halves across its widest side (also where the height function may be
+// steep, which would slow the convergence). Along each line the roots of
 // phi are bracketed and polished by safeguarded Newton steps, and every
 // piece gets a Gauss-Legendre rule of the requested order Q (from package
-// design/fast in float64, from design at extended precision). Triangles and
+// design/fast; rules are built in float64 only so far). Triangles and
 // tetrahedra are reached from the unit square and cube through the
 // collapsed (Duffy) map, its Jacobian folded into the weights.
 //

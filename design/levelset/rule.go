@@ -45,7 +45,7 @@ type Request struct {
 	Side     Side
 	Order    int    // points of every one-dimensional Gauss-Legendre rule, 1..MaxOrder
 	Weight   string // optional weight w(x, y[, z]) > 0 multiplying the weights
-	Digits   int    // 0: float64 mode; else significant digits (see Build)
+	Digits   int    // 0: float64 mode; more is refused for now (see refine)
 }
 
 // MaxOrder bounds Request.Order.
