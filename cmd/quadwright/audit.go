@@ -125,6 +125,9 @@ func runAudit(ctx context.Context, o *auditOptions, path string, cmd *cobra.Comm
 	if err != nil {
 		return err
 	}
+	if file.IsLevelSet() {
+		return runLevelSetAudit(ctx, o, path, format, checks, cmd)
+	}
 	if done, err := runPolytopeAudit(ctx, o, file, path, format, checks, opt.MaxDegree, cmd); done {
 		return err
 	}

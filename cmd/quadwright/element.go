@@ -20,6 +20,7 @@ type elementOptions struct {
 	allowNegative, allowOutside           bool
 	weight, momentsFile                   string
 	poly                                  polytopeOptions
+	ls                                    levelSetOptions
 }
 
 func newElementCommand() *cobra.Command {
@@ -71,7 +72,8 @@ digits of decimal moments limit --digits.`,
   printf '0 0 1/2\n1 0 1/6\n0 1 1/6\n2 0 1/12\n1 1 1/24\n0 2 1/12\n' > tri-moments.txt
   quadwright element --shape triangle --degree 2 --moments tri-moments.txt --digits 30
   printf '0 0\n2 0\n2 1\n1 1\n1 2\n0 2\n' > lshape.txt
-  quadwright element --polygon lshape.txt --degree 6`,
+  quadwright element --polygon lshape.txt --degree 6
+  quadwright element --shape quadrilateral --level-set "x^2+y^2-0.25" --degree 10 --format json -o disc.json`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			return runElement(cmd.Context(), o, cmd)
@@ -90,6 +92,7 @@ digits of decimal moments limit --digits.`,
 	f.BoolVar(&o.allowNegative, "allow-negative", false, "accept rules with negative weights (every rule built now has positive weights)")
 	addPolytopeFlags(f, &o.poly)
 	f.BoolVar(&o.allowOutside, "allow-outside", false, "accept rules with nodes outside the element (every rule built now has its nodes inside)")
+	addLevelSetFlags(f, &o.ls)
 	return cmd
 }
 
@@ -97,8 +100,14 @@ func runElement(ctx context.Context, o *elementOptions, cmd *cobra.Command) erro
 	if ctx == nil {
 		ctx = context.Background()
 	}
+	if o.poly.active() && o.ls.asked() {
+		return fmt.Errorf("--level-set: not available with --polygon, --polyhedron, --polygons or --polyhedra; it cuts a reference element or a --box")
+	}
 	if o.poly.active() {
 		return runPolytope(ctx, o, cmd)
+	}
+	if o.ls.asked() {
+		return runLevelSetElement(ctx, o, cmd)
 	}
 	format, err := parseFormat(o.format)
 	if err != nil {

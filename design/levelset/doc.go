@@ -1,0 +1,28 @@
+// Package levelset builds quadrature rules on cut elements: the part of a
+// rectangle, box, quadrilateral, hexahedron, triangle or tetrahedron where
+// a level-set function phi is negative (inside) or positive (outside), and
+// the interface phi = 0 itself with its area (in 2-D, length) measure.
+//
+// The method is R. I. Saye, "High-order quadrature methods for implicitly
+// defined surfaces and volumes in hyperrectangles", SIAM J. Sci. Comput.
+// 37 (2015), A993-A1019: a height direction is chosen from the gradient of
+// phi; where interval arithmetic confirms that phi is monotone along it
+// over the whole box (so the implicit function theorem makes the interface
+// a graph over the other coordinates) the problem reduces by one dimension
+// to the faces, with Saye's sign rules; elsewhere the box is split into
+// halves across its widest side (also where the height function may be
+// steep, which would slow the convergence). Along each line the roots of
+// phi are bracketed and polished by safeguarded Newton steps, and every
+// piece gets a Gauss-Legendre rule of the requested order Q (from package
+// design/fast; rules are built in float64 only so far). Triangles and
+// tetrahedra are reached from the unit square and cube through the
+// collapsed (Duffy) map, its Jacobian folded into the weights.
+//
+// The gradient of phi comes from forward-mode automatic differentiation
+// of the parsed expression (moments.Expr.Grad64, GradSpan), not from
+// differences. Weights are positive by construction (products of
+// Gauss-Legendre weights, lengths and Jacobians), and every node lies
+// strictly on the side asked. Rules are not exact for any polynomial
+// space, so no degree is claimed; the estimated error compares the rule
+// with the one of order Q+4 (Rule.EstimatedError).
+package levelset
