@@ -29,12 +29,13 @@ func (mf measureFlags) readMeasure() (*moments.DiscreteMeasure, error) {
 	return dm, err
 }
 
-// supportLabel is m's support as stated, or "support not given".
+// supportLabel is the phrase for m's support after its name: " on [a, b]" as
+// stated, or ", support not given".
 func supportLabel(m design.Measure) string {
 	if s, ok := m.(design.SupportStater); ok && !s.SupportGiven() {
-		return "support not given"
+		return ", support not given"
 	}
-	return m.Domain().String()
+	return " on " + m.Domain().String()
 }
 
 // supportJSON is the "interval" of a JSON listing: the stated ends, or nil

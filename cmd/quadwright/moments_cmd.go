@@ -132,7 +132,7 @@ func runMoments(ctx context.Context, o *momentsOptions, cmd *cobra.Command) erro
 				fmt.Fprintf(out, "%d,%s\n", k, v)
 			}
 		default:
-			fmt.Fprintf(out, "# %s moments of %s%s on %s\n", basis.Name, m.Label(), design.WeightPhrase(m.Weight()), supportLabel(m))
+			fmt.Fprintf(out, "# %s moments of %s%s%s\n", basis.Name, m.Label(), design.WeightPhrase(m.Weight()), supportLabel(m))
 			fmt.Fprintf(out, "# digits: %d significant, each within one unit of its last place\n", D)
 			for k, v := range vals {
 				if bounds[k] != "" {

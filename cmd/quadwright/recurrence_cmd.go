@@ -138,7 +138,7 @@ func runRecurrence(ctx context.Context, o *listOptions, cmd *cobra.Command) erro
 				fmt.Fprintf(w, "%d,%s,%s\n", k, alpha[k], beta[k])
 			}
 		default:
-			fmt.Fprintf(w, "# recurrence of %s%s on %s\n", m.Label(), design.WeightPhrase(m.Weight()), supportLabel(m))
+			fmt.Fprintf(w, "# recurrence of %s%s%s\n", m.Label(), design.WeightPhrase(m.Weight()), supportLabel(m))
 			fmt.Fprintf(w, "# pi_{k+1} = (x - alpha_k) pi_k - beta_k pi_{k-1}; beta_0 is the total mass\n")
 			fmt.Fprintf(w, "# digits: %d significant, confirmed at %d and %d bits\n", D, p, p+64)
 			writeColumns(w, []string{"k", "alpha", "beta"}, alpha, beta)

@@ -57,7 +57,7 @@ func writeText(w *strings.Builder, r *design.Rule) error {
 		digits = fmt.Sprintf("%d significant, each within one unit of its last place", r.Digits)
 	}
 	fmt.Fprintf(w, "# quadwright %s rule\n", r.Kind)
-	fmt.Fprintf(w, "# measure:  %s%s on %s\n", r.Measure, design.WeightPhrase(r.Weight), domainLabel(r))
+	fmt.Fprintf(w, "# measure:  %s%s%s\n", r.Measure, design.WeightPhrase(r.Weight), domainLabel(r))
 	fmt.Fprintf(w, "# points:   %d\n", r.Points())
 	fmt.Fprintf(w, "# degree:   %d (verified on the printed values; largest residual %s times the tolerance)\n", r.Degree, maxRatio(r))
 	fmt.Fprintf(w, "# digits:   %s\n", digits)
@@ -90,13 +90,14 @@ func padSign(s string) string {
 	return " " + s
 }
 
-// domainLabel is the rule's support as the user stated it, or "support
-// not given" with the span of the nodes when none was stated.
+// domainLabel is the phrase for the rule's support after the measure: " on
+// [a, b]" as the user stated it, or ", support not given" with the span of
+// the nodes when none was stated.
 func domainLabel(r *design.Rule) string {
 	if !r.SupportUnknown {
-		return r.Domain.String()
+		return " on " + r.Domain.String()
 	}
-	return fmt.Sprintf("support not given (nodes span [%s, %s])", r.Nodes[0], r.Nodes[len(r.Nodes)-1])
+	return fmt.Sprintf(", support not given (nodes span [%s, %s])", r.Nodes[0], r.Nodes[len(r.Nodes)-1])
 }
 
 // inputLabel states the bound and the measured estimate of the digits a
