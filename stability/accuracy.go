@@ -125,19 +125,20 @@ func digitsOf(residual float64) int {
 // elementAccuracy is impliedAccuracy for an element rule: the residuals by
 // total degree (element.DegreeResiduals, at the bits the exactness test
 // used) through the degree tested, bounded by the degree the point count
-// allows.
-func elementAccuracy(ctx context.Context, s element.Shape, xs [][]*big.Rat, ws []*big.Rat, u, slack *big.Rat, ex element.Exactness, integral element.Integral, bound int) (*Accuracy, error) {
+// allows. It returns the residuals by degree beside it: relative to their
+// scale, and as shares of their tolerance.
+func elementAccuracy(ctx context.Context, s element.Shape, xs [][]*big.Rat, ws []*big.Rat, u, slack *big.Rat, ex element.Exactness, integral element.Integral, bound int) (a *Accuracy, rel, share []Float, err error) {
 	prec := precision.DigitsToBits(ex.Digits) + 64
 	if uBits := u.Denom().BitLen() - u.Num().BitLen() + 1; uBits > 0 {
 		prec = max(prec, uint(uBits)+64)
 	}
-	rel, share, err := element.DegreeResiduals(ctx, s, xs, ws, u, slack, ex.Tested, prec, integral)
+	r64, s64, err := element.DegreeResiduals(ctx, s, xs, ws, u, slack, ex.Tested, prec, integral)
 	if err != nil {
-		return nil, err
+		return nil, nil, nil, err
 	}
-	r, sh := make([]Float, len(rel)), make([]Float, len(share))
-	for j := range rel {
-		r[j], sh[j] = Float(rel[j]), Float(share[j])
+	rel, share = make([]Float, len(r64)), make([]Float, len(s64))
+	for j := range r64 {
+		rel[j], share[j] = Float(r64[j]), Float(s64[j])
 	}
-	return accuracyOf(r, sh, ex.Degree, bound, ex.Digits), nil
+	return accuracyOf(rel, share, ex.Degree, bound, ex.Digits), rel, share, nil
 }

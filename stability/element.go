@@ -64,7 +64,12 @@ type ElementReport struct {
 	Symmetry    SymmetryReport `json:"symmetry"`
 	// Accuracy says what the residuals imply for the values (accuracy.go).
 	Accuracy *Accuracy `json:"accuracy,omitempty"`
-	Notes    []string  `json:"notes,omitempty"`
+	// Residual[d] is the largest residual of a degree-d monomial as a share
+	// of its tolerance, RelResidual[d] the same relative to its scale, for
+	// d = 0..DegreeTested (as the interval audit's keys of the same names).
+	Residual    []Float  `json:"residual_share,omitempty"`
+	RelResidual []Float  `json:"residual,omitempty"`
+	Notes       []string `json:"notes,omitempty"`
 }
 
 // AuditElement audits the printed rule (nodes[i] with s.Dim() coordinates,
@@ -179,7 +184,7 @@ func AuditElement(ctx context.Context, s element.Shape, nodes [][]string, weight
 		return nil, err
 	}
 	rep.Degree, rep.DegreeTested, rep.WorstShare = ex.Degree, ex.Tested, Float(ex.WorstShare)
-	if rep.Accuracy, err = elementAccuracy(ctx, s, xs, ws, u, slack, ex, integral, rep.DegreeBound); err != nil {
+	if rep.Accuracy, rep.RelResidual, rep.Residual, err = elementAccuracy(ctx, s, xs, ws, u, slack, ex, integral, rep.DegreeBound); err != nil {
 		return nil, err
 	}
 	if integral != nil {

@@ -15,13 +15,19 @@ import (
 // p_j'(x_i)|) with p_j the degree-j orthogonal polynomial of the measure,
 // share_of_tolerance the same divided by 10u (a degree passes at <= 1), and
 // passes says whether it did. Values are float64 in shortest form; an
-// infinite share (a tolerance of zero) is written "inf".
+// infinite share (a tolerance of zero) is written "inf". For an element
+// rule p_j runs over the monomials of total degree j and each line holds
+// the largest of their residuals.
 func writeResidualCSV(w *strings.Builder, r *stability.Report) error {
+	return residualTable(w, r.Residual, r.RelResidual)
+}
+
+func residualTable(w *strings.Builder, shares, rel []stability.Float) error {
 	w.WriteString("degree,residual,share_of_tolerance,passes\n")
-	for j, share := range r.Residual {
+	for j, share := range shares {
 		res := "nan"
-		if j < len(r.RelResidual) {
-			res = csvFloat(float64(r.RelResidual[j]))
+		if j < len(rel) {
+			res = csvFloat(float64(rel[j]))
 		}
 		fmt.Fprintf(w, "%d,%s,%s,%t\n", j, res, csvFloat(float64(share)), float64(share) <= 1)
 	}

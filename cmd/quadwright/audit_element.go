@@ -22,9 +22,6 @@ import (
 // unit and maxDegree are --tolerance and --max-degree as runAudit read
 // them (nil and 0 when not given).
 func runElementAudit(ctx context.Context, o *auditOptions, file *rulefile.File, shape element.Shape, path, format string, checks []failCheck, unit *big.Rat, maxDegree int, cmd *cobra.Command) error {
-	if format == "csv" {
-		return fmt.Errorf("--format csv: the residual table by degree is written for rules on an interval; for a rule on the %s choose text, json or html", shape)
-	}
 	m := o.measure
 	for _, f := range []struct{ name, val string }{
 		{"--family", m.family}, {"--alpha", m.alpha}, {"--beta", m.beta}, {"--interval", m.interval},
@@ -72,6 +69,8 @@ func runElementAudit(ctx context.Context, o *auditOptions, file *rulefile.File, 
 			return enc.Encode(rep)
 		case "html":
 			return rep.WriteHTML(w, path, nodesOf(file), file.Weights)
+		case "csv":
+			return residualTable(w, rep.Residual, rep.RelResidual)
 		}
 		return rep.WriteText(w, path)
 	})

@@ -71,9 +71,25 @@ func TestAuditCSV(t *testing.T) {
 			t.Errorf("row %v: share is not residual / 10u", row)
 		}
 	}
-	// Element rules have no per-degree table: refused, naming the format.
-	run(t, dir, "element", "--shape", "triangle", "--degree", "2", "--format", "json", "-o", "t2.json")
-	expectInputError(t, dir, []string{"audit", "t2.json", "--format", "csv"}, "--format csv")
+	// An element rule's table: the largest monomial residual of each total
+	// degree; the 7-point degree-5 triangle rule passes through 5 and fails
+	// at 6, the one degree past its point count's bound that the audit tests.
+	if _, errs, code := run(t, dir, "element", "--shape", "triangle", "--degree", "5", "--format", "json", "-o", "t5.json"); code != 0 {
+		t.Fatal(errs)
+	}
+	out, errs, code = run(t, dir, "audit", "t5.json", "--format", "csv")
+	if code != 0 {
+		t.Fatal(errs)
+	}
+	rows, err = csv.NewReader(strings.NewReader(out)).ReadAll()
+	if err != nil || len(rows) != 1+7 || strings.Join(rows[0], ",") != "degree,residual,share_of_tolerance,passes" {
+		t.Fatalf("element table %v %q", err, out)
+	}
+	for j, row := range rows[1:] {
+		if pass := j <= 5; row[0] != strconv.Itoa(j) || (row[3] == "true") != pass {
+			t.Errorf("element row %v: want degree %d passing %v", row, j, pass)
+		}
+	}
 }
 
 // TestFileMeasureLabels: a rule built from a moment list names the file in
