@@ -45,6 +45,10 @@ type Domain struct {
 	Vertices [][]string `json:"vertices,omitempty"`
 	// Faces, for a polyhedron, lists each face's 1-based vertex indices.
 	Faces [][]int `json:"faces,omitempty"`
+	// Support is "not given" when the measure came without a stated
+	// support (raw moments without --interval): Interval is then the whole
+	// line only as the measure's nominal domain, not a claim of the user's.
+	Support string `json:"support,omitempty"`
 }
 
 // Node is one node: a single coordinate (written as a JSON string) or, for
@@ -100,7 +104,7 @@ type Provenance struct {
 func FromRule(r *design.Rule, fam *moments.Family, program string) *File {
 	f := &File{
 		Format: FormatName, Kind: r.Kind,
-		Domain: Domain{Shape: "interval", Interval: r.Domain.Strings()},
+		Domain: Domain{Shape: "interval", Interval: r.Domain.Strings(), Support: supportNote(r)},
 		Weight: r.Weight, Points: r.Points(), Degree: r.Degree, Digits: r.Digits,
 		Weights: append([]string(nil), r.Weights...), Measure: r.Measure,
 		Provenance: &Provenance{
@@ -154,4 +158,13 @@ func (f *File) Dim() int {
 		return 1
 	}
 	return len(f.Nodes[0])
+}
+
+// supportNote is Domain.Support for r: "not given" when r's measure came
+// without a stated support, else empty.
+func supportNote(r *design.Rule) string {
+	if r.SupportUnknown {
+		return "not given"
+	}
+	return ""
 }
