@@ -19,6 +19,9 @@ import (
 // weights are positive, but its end nodes can fall outside the support,
 // where the integrand may not be defined: such a rule is refused.
 func AntiGauss(ctx context.Context, m Measure, req Request) (*Rule, error) {
+	if err := needPairs(m, 2*req.Points+1, fmt.Sprintf("the anti-Gauss rule paired with the %d-point Gauss rule", req.Points)); err != nil {
+		return nil, err // before checkRequest, as in Radau
+	}
 	req, err := checkRequest(ctx, m, req, req.Points+1)
 	if err != nil {
 		return nil, err

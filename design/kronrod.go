@@ -32,6 +32,11 @@ import (
 // stage's precision. Otherwise, or when a node falls outside the support,
 // the extension is refused with the reason.
 func Kronrod(ctx context.Context, m Measure, req Request) (*Rule, error) {
+	// The count first, so that digits advised by checkRequest are never
+	// followed by a refusal for too few moments (as in Radau).
+	if err := needPairs(m, max((3*req.Points+1)/2+1, 3*req.Points+1), fmt.Sprintf("the Kronrod extension of the %d-point Gauss rule", req.Points)); err != nil {
+		return nil, err
+	}
 	req, err := checkRequest(ctx, m, req, 2*req.Points+1)
 	if err != nil {
 		return nil, err

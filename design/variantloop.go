@@ -137,7 +137,14 @@ func sourceFor(m RecurrenceSource, need, hold int, prec uint, what string) (*cac
 		return nil, err
 	}
 	src := &cachedSource{src: m}
-	if err := src.reserve(max(need, hold), confirmPrec(prec)); err != nil {
+	// hold is what the rule's own check would like beyond need; a finite
+	// moment list may provide no more than need, and the check then tests
+	// what there is.
+	h := max(need, hold)
+	if mx := m.MaxLen(); mx >= 0 && h > mx {
+		h = mx
+	}
+	if err := src.reserve(h, confirmPrec(prec)); err != nil {
 		return nil, err
 	}
 	return src, nil

@@ -186,6 +186,16 @@ func TestDigitsAutoAndAdvice(t *testing.T) {
 		fmt.Fprintf(&b, "%.15e\n", math.Gamma(float64(k)+1.5))
 	}
 	writeFile(t, dir, "gam.txt", b.String())
+	for k := 12; k < 24; k++ {
+		fmt.Fprintf(&b, "%.15e\n", math.Gamma(float64(k)+1.5))
+	}
+	writeFile(t, dir, "gam24.txt", b.String())
+	// 1/(k+1), the moments of weight 1 on [0, 1], to 16 digits (our own data).
+	b.Reset()
+	for k := 0; k < 24; k++ {
+		fmt.Fprintf(&b, "%.15e\n", 1/float64(k+1))
+	}
+	writeFile(t, dir, "unit24.txt", b.String())
 	for _, f := range []string{"lag.txt", "leg.txt"} {
 		out, errs, code := run(t, dir, "build", "--moments", f, "--points", "4", "--digits", "auto", "--format", "json")
 		if code != 0 || digitsOf(t, out) != 34 {
@@ -205,7 +215,8 @@ func TestDigitsAutoAndAdvice(t *testing.T) {
 	}
 	re := regexp.MustCompile(`--digits (\d+) or fewer`)
 	advised := 0
-	for _, kind := range [][]string{{"--kind", "gauss"}, {"--kind", "radau", "--interval", "0,inf"}, {"--kind", "lobatto", "--interval", "0,40"}, {"--kind", "gauss", "--interval", "0,inf"}} {
+	for _, kind := range [][]string{{"--kind", "gauss"}, {"--kind", "radau", "--interval", "0,inf"}, {"--kind", "lobatto", "--interval", "0,40"}, {"--kind", "gauss", "--interval", "0,inf"},
+		{"--kind", "kronrod", "--interval", "0,1", "--moments", "unit24.txt"}, {"--kind", "anti-gauss", "--interval", "0,inf", "--moments", "gam24.txt"}} {
 		for _, n := range []string{"3", "4", "5"} {
 			args := append([]string{"build", "--moments", "gam.txt", "--points", n}, kind...)
 			_, errs, code := run(t, dir, args...)
