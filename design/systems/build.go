@@ -167,6 +167,10 @@ func thin(x, c []*big.Float, limit int) ([]*big.Float, []*big.Float) {
 func sensitivity(J [][]*big.Float, u *basis, est []*big.Float, prec uint) []float64 {
 	m := len(est)
 	out := make([]float64, m)
+	f, ok := factor(J, prec)
+	if !ok {
+		return nil
+	}
 	for j := 0; j < m; j++ {
 		ej, _ := est[j].Float64()
 		if ej == 0 {
@@ -178,13 +182,7 @@ func sensitivity(J [][]*big.Float, u *basis, est []*big.Float, prec uint) []floa
 		}
 		col[j].SetInt64(1)
 		u.solveRT(col, prec)
-		cp := make([][]*big.Float, m)
-		for i := range cp {
-			cp[i] = cloneAt(J[i], prec)
-		}
-		if !solve(cp, col, prec) {
-			return nil
-		}
+		col = f.solve(col)
 		for i := range col {
 			v, _ := col[i].Float64()
 			out[i] += math.Abs(v) * ej

@@ -41,6 +41,69 @@ func solve(a [][]*big.Float, b []*big.Float, prec uint) bool {
 	return true
 }
 
+// lu is an LU factorisation with partial pivoting (factor), for solving
+// with one matrix many times.
+type lu struct {
+	a    [][]*big.Float // L below the diagonal (unit diagonal), U on and above
+	perm []int          // row k of the factors is row perm[k] of the matrix
+	prec uint
+}
+
+// factor returns the LU factors of a copy of A at prec bits, or false for
+// a matrix singular at that precision.
+func factor(a [][]*big.Float, prec uint) (*lu, bool) {
+	n := len(a)
+	f := &lu{a: make([][]*big.Float, n), perm: make([]int, n), prec: prec}
+	for i := range a {
+		f.a[i] = cloneAt(a[i], prec)
+		f.perm[i] = i
+	}
+	t := new(big.Float).SetPrec(prec)
+	for k := 0; k < n; k++ {
+		p := k
+		for i := k + 1; i < n; i++ {
+			if cmpAbs(f.a[i][k], f.a[p][k]) > 0 {
+				p = i
+			}
+		}
+		if f.a[p][k].Sign() == 0 {
+			return nil, false
+		}
+		f.a[k], f.a[p] = f.a[p], f.a[k]
+		f.perm[k], f.perm[p] = f.perm[p], f.perm[k]
+		for i := k + 1; i < n; i++ {
+			l := f.a[i][k].Quo(f.a[i][k], f.a[k][k])
+			if l.Sign() == 0 {
+				continue
+			}
+			for j := k + 1; j < n; j++ {
+				f.a[i][j].Sub(f.a[i][j], t.Mul(l, f.a[k][j]))
+			}
+		}
+	}
+	return f, true
+}
+
+// solve returns A^-1 b at the factors' precision (b is not modified).
+func (f *lu) solve(b []*big.Float) []*big.Float {
+	n := len(b)
+	y := make([]*big.Float, n)
+	t := new(big.Float).SetPrec(f.prec)
+	for k := 0; k < n; k++ {
+		y[k] = new(big.Float).SetPrec(f.prec).Set(b[f.perm[k]])
+		for j := 0; j < k; j++ {
+			y[k].Sub(y[k], t.Mul(f.a[k][j], y[j]))
+		}
+	}
+	for k := n - 1; k >= 0; k-- {
+		for j := k + 1; j < n; j++ {
+			y[k].Sub(y[k], t.Mul(f.a[k][j], y[j]))
+		}
+		y[k].Quo(y[k], f.a[k][k])
+	}
+	return y
+}
+
 // inverseAbsTimes returns |A^-1| v for a copy of A, at prec bits (column
 // by column), or nil when A is singular at that precision.
 func inverseAbsTimes(a [][]*big.Float, v []float64, prec uint) []float64 {
