@@ -336,7 +336,10 @@ func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int, st *attemptS
 		// two bases runs a node into an end.
 		bounds(p2)
 		var x0, w0 []*big.Float
-		if x0, w0, err = logStart(ctx, n, c, p); err == nil {
+		// The path's points are solved to 2^-40 in the raw functions,
+		// which lose about condBits: the precision for that, not p.
+		pathPrec := min(p, (uint(math.Ceil(u.condBits))+128+63)/64*64)
+		if x0, w0, err = logStart(ctx, n, c, pathPrec); err == nil {
 			x1, w1, err = h.newton(ctx, 1, x0, w0, p, 0, 40)
 		}
 		method = "Newton continuation (Ma, Rokhlin, Wandzura 1996) along a power-exponent path x^a_k, (x^b_k - x^a_k)/(b_k - a_k) from the Gauss-Legendre rule"

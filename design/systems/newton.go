@@ -206,7 +206,7 @@ func cloneAt(v []*big.Float, prec uint) []*big.Float {
 // interval or a weight reaching zero, and the fallback is cheaper than
 // following it), then solves the final point to prec.
 func (h *homotopy) continuation(ctx context.Context, xs, ws []*big.Float, prec uint) ([]*big.Float, []*big.Float, error) {
-	x, w, err := follow(ctx, h, xs, ws, prec, 0x1p-5, 6)
+	x, w, err := follow(ctx, h, xs, ws, prec, 1, 1, 0x1p-5, 6)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -214,20 +214,21 @@ func (h *homotopy) continuation(ctx context.Context, xs, ws []*big.Float, prec u
 }
 
 // follow tracks the solution of h from the rule (xs, ws) at s = 0 to
-// s = 1 with adaptive steps: a step whose Newton iteration fails (or
-// leaves the nodes' order or the interval) is halved, down to minStep and
-// at most maxFails times in all; after a success the step doubles.
+// s = 1 with adaptive steps, the first ds0: a step whose Newton iteration
+// fails (or leaves the nodes' order or the interval) is halved, down to
+// minStep and at most maxFails times in all; after a success the step
+// doubles, up to maxStep.
 // Points are solved to 2^-40, the one at s = 1 included; each starts from
 // the secant through the last two solutions when that guess is itself
 // valid.
-func follow(ctx context.Context, h equationSystem, xs, ws []*big.Float, prec uint, minStep float64, maxFails int) ([]*big.Float, []*big.Float, error) {
+func follow(ctx context.Context, h equationSystem, xs, ws []*big.Float, prec uint, ds0, maxStep, minStep float64, maxFails int) ([]*big.Float, []*big.Float, error) {
 	type point struct {
 		s      float64
 		xs, ws []*big.Float
 	}
 	cur := point{0, cloneAt(xs, prec), cloneAt(ws, prec)}
 	var prev *point
-	ds := 1.0
+	ds := ds0
 	fails := 0
 	for cur.s < 1 {
 		s1 := math.Min(1, cur.s+ds)
@@ -255,7 +256,7 @@ func follow(ctx context.Context, h equationSystem, xs, ws []*big.Float, prec uin
 		p := cur
 		prev = &p
 		cur = point{s1, nx, nw}
-		ds *= 2
+		ds = math.Min(2*ds, maxStep)
 	}
 	return cur.xs, cur.ws, nil
 }
