@@ -6,6 +6,7 @@ import (
 	"math/big"
 
 	"quadwright/moments"
+	"quadwright/precision"
 )
 
 // basis is an orthonormalised form of a function system: u = R^-T f, with
@@ -67,62 +68,66 @@ func (b *basis) orient(q *basis) {
 // modified Gram-Schmidt: one pass loses orthogonality in proportion to
 // the conditioning, the second restores it). A function whose remainder
 // after the others is below 2^-(prec/2) of its norm is dependent on them:
-// that is an error naming it.
+// that is an error naming it. The sweeps, O(m^2 L) products, run in
+// precision.Real (prec rounded up to whole words), which allocates
+// nothing; r and the columns are handed back as big.Float.
 func newBasis(fs []*moments.Expr, names []string, x, c []*big.Float, prec uint) (*basis, error) {
 	m, L := len(fs), len(x)
 	if L < 2*m {
 		return nil, fmt.Errorf("the discretisation of the weight has %d points, too few for %d functions", L, m)
 	}
-	a := make([][]*big.Float, m) // column k: sqrt(c_l) f_k(x_l)
-	sc := make([]*big.Float, L)
-	for l := range x {
-		sc[l] = new(big.Float).SetPrec(prec).Sqrt(new(big.Float).SetPrec(prec).Set(c[l]))
-	}
-	norms := make([]float64, m)
+	a := make([][]*precision.Real, m) // column k: sqrt(c_l) f_k(x_l)
 	for k := range fs {
-		a[k] = make([]*big.Float, L)
+		a[k] = precision.NewRealSlice(L, prec)
 	}
+	sc := new(big.Float).SetPrec(prec)
 	for l := range x {
 		v, err := moments.EvalShared(fs, prec, x[l])
 		if err != nil {
 			return nil, err
 		}
+		sc.Sqrt(new(big.Float).SetPrec(prec).Set(c[l]))
 		for k := range fs {
-			a[k][l] = v[k].Mul(v[k], sc[l])
+			a[k][l].SetBig(v[k].Mul(v[k], sc))
 		}
 	}
+	s, t := precision.NewReal(prec), precision.NewReal(prec)
+	dot := func(u, v []*precision.Real) *precision.Real {
+		s.SetInt64(0)
+		for i := range u {
+			s.Add(s, t.Mul(u[i], v[i]))
+		}
+		return s
+	}
+	norms := make([]float64, m)
 	for k := range fs {
-		n := dot(a[k], a[k], prec)
-		norms[k], _ = n.Sqrt(n).Float64()
+		norms[k] = math.Sqrt(dot(a[k], a[k]).Float64())
 	}
-	r := make([][]*big.Float, m)
+	r := make([][]*precision.Real, m)
 	for i := range r {
-		r[i] = make([]*big.Float, m)
-		for j := range r[i] {
-			r[i][j] = new(big.Float).SetPrec(prec)
-		}
+		r[i] = precision.NewRealSlice(m, prec)
 	}
-	t := new(big.Float).SetPrec(prec)
+	d, n, inv, one := precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec), precision.NewReal(prec).SetInt64(1)
 	minRatio, condBits := math.Inf(1), 0.0
 	for k := 0; k < m; k++ {
 		for pass := 0; pass < 2; pass++ {
 			for i := 0; i < k; i++ {
-				d := dot(a[i], a[k], prec)
+				d.Set(dot(a[i], a[k]))
 				r[i][k].Add(r[i][k], d)
-				for l := range a[k] {
-					a[k][l].Sub(a[k][l], t.Mul(d, a[i][l]))
+				ai, ak := a[i], a[k]
+				for l := range ak {
+					ak[l].Sub(ak[l], t.Mul(d, ai[l]))
 				}
 			}
 		}
-		n := dot(a[k], a[k], prec)
-		n.Sqrt(n)
+		n.Sqrt(dot(a[k], a[k]))
 		r[k][k].Set(n)
-		nf, _ := n.Float64()
-		if n.Sign() == 0 || n.MantExp(nil) < -int(prec/2) || nf < norms[k]*math.Ldexp(1, -int(prec/2)) {
+		nf := n.Float64()
+		if n.IsZero() || n.Exponent() < -int64(prec/2) || nf < norms[k]*math.Ldexp(1, -int(prec/2)) {
 			return nil, fmt.Errorf("the functions are linearly dependent on the weight's support: %s is a combination of the ones before it", names[k])
 		}
 		minRatio = math.Min(minRatio, nf/norms[k])
-		inv := new(big.Float).SetPrec(prec).Quo(big.NewFloat(1), n)
+		inv.Quo(one, n)
 		for l := range a[k] {
 			a[k][l].Mul(a[k][l], inv)
 		}
@@ -130,7 +135,17 @@ func newBasis(fs []*moments.Expr, names []string, x, c []*big.Float, prec uint) 
 	if minRatio > 0 {
 		condBits = math.Max(0, -math.Log2(minRatio))
 	}
-	return &basis{fs: fs, r: r, prec: prec, condBits: condBits, cols: a, flip: make([]bool, m)}, nil
+	big2 := func(v [][]*precision.Real) [][]*big.Float {
+		out := make([][]*big.Float, len(v))
+		for i := range v {
+			out[i] = make([]*big.Float, len(v[i]))
+			for j := range v[i] {
+				out[i][j] = v[i][j].Big(new(big.Float).SetPrec(prec))
+			}
+		}
+		return out
+	}
+	return &basis{fs: fs, r: big2(r), prec: prec, condBits: condBits, cols: big2(a), flip: make([]bool, m)}, nil
 }
 
 func dot(a, b []*big.Float, prec uint) *big.Float {

@@ -87,21 +87,15 @@ func startSystem(ctx context.Context, w *moments.Weight, n int) (fs []*moments.E
 	iv := w.Interval
 	if iv.Lo.Finite() && !iv.Hi.Finite() && w.Source == "1" {
 		a := moments.RatString(iv.Lo.Value)
-		unit := moments.Interval{Lo: moments.Endpoint{Value: new(big.Rat)}, Hi: moments.Endpoint{Value: big.NewRat(1, 1)}}
-		fam, err := moments.NewFamily("legendre", nil, nil, &unit)
-		if err != nil {
-			return nil, nil, nil, "", err
-		}
-		r, err := design.Gauss(ctx, design.FamilySource{Family: fam}, design.Request{Points: n, Digits: 20})
+		t, W, err := legendre01(ctx, n)
 		if err != nil {
 			return nil, nil, nil, "", err
 		}
 		for i := n - 1; i >= 0; i-- {
-			t := r.NodeValues[i]
-			lt := precision.Log(t)
-			x := new(big.Float).SetPrec(t.Prec()).SetRat(iv.Lo.Value)
+			lt := precision.Log(t[i])
+			x := new(big.Float).SetPrec(t[i].Prec()).SetRat(iv.Lo.Value)
 			xs = append(xs, x.Sub(x, lt))
-			ws = append(ws, new(big.Float).SetPrec(t.Prec()).Quo(r.WeightValues[i], t))
+			ws = append(ws, new(big.Float).SetPrec(t[i].Prec()).Quo(W[i], t[i]))
 		}
 		for j := 1; j <= 2*n; j++ {
 			fs = append(fs, moments.MustParseExpr(fmt.Sprintf("exp(-%d*(x-(%s)))", j, a), "x"))
@@ -173,6 +167,10 @@ func thin(x, c []*big.Float, limit int) ([]*big.Float, []*big.Float) {
 func sensitivity(J [][]*big.Float, u *basis, est []*big.Float, prec uint) []float64 {
 	m := len(est)
 	out := make([]float64, m)
+	f, ok := factor(J, prec)
+	if !ok {
+		return nil
+	}
 	for j := 0; j < m; j++ {
 		ej, _ := est[j].Float64()
 		if ej == 0 {
@@ -184,13 +182,7 @@ func sensitivity(J [][]*big.Float, u *basis, est []*big.Float, prec uint) []floa
 		}
 		col[j].SetInt64(1)
 		u.solveRT(col, prec)
-		cp := make([][]*big.Float, m)
-		for i := range cp {
-			cp[i] = cloneAt(J[i], prec)
-		}
-		if !solve(cp, col, prec) {
-			return nil
-		}
+		col = f.solve(col)
 		for i := range col {
 			v, _ := col[i].Float64()
 			out[i] += math.Abs(v) * ej
@@ -256,9 +248,9 @@ func GeneralizedGauss(ctx context.Context, pr Problem, req design.Request) (*Res
 	d := max(D, 17)
 	md := d + 10
 	var lastErr error
-	var start [2][]*big.Float
+	st := &attemptState{}
 	for attempt := 0; attempt < 3; attempt++ {
-		res, extra, err := gaussAttempt(ctx, pr, n, D, d, md, start, &start)
+		res, extra, err := gaussAttempt(ctx, pr, n, D, d, md, st)
 		if err == nil {
 			return res, nil
 		}
@@ -274,19 +266,22 @@ func GeneralizedGauss(ctx context.Context, pr Problem, req design.Request) (*Res
 	return nil, lastErr
 }
 
+// attemptState is what one attempt leaves to the next when only the
+// moments' digits fell short: its rule (refined by Newton instead of a new
+// continuation), how it was reached, and the orthonormalised bases (they
+// depend on the functions and the discretisation, not on the moments).
+type attemptState struct {
+	start  [2][]*big.Float
+	method string
+	u, q   *basis
+}
+
 // gaussAttempt is one computation with moments to md digits. extra > 0
-// says that more moment digits (about extra) would let it succeed.
-//
-// start, when set, is the rule of an earlier attempt, refined by Newton
-// instead of a new continuation; last receives this attempt's rule when
-// only the moments' digits fell short.
-func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int, start [2][]*big.Float, last *[2][]*big.Float) (*Result, int, error) {
+// says that more moment digits (about extra) would let it succeed; st then
+// holds this attempt's rule.
+func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int, st *attemptState) (*Result, int, error) {
 	m := 2 * n
 	I, est, xd, cd, err := pr.momentsAt(ctx, md)
-	if err != nil {
-		return nil, 0, err
-	}
-	qfs, x0, w0, startLabel, err := startSystem(ctx, pr.Weight, n)
 	if err != nil {
 		return nil, 0, err
 	}
@@ -296,61 +291,106 @@ func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int, start [2][]*
 	// 128 bits to their conditioning; one that loses more is
 	// orthonormalised again with room for it.
 	gs := wp + 192
-	u, err := newBasis(pr.exprs(), pr.names(), xd, cd, gs)
-	if err != nil {
-		return nil, 0, err
-	}
-	if _, p2 := precisions(d, m, u.condBits); p2+64 > gs {
-		gs = p2 + 128
-		if u, err = newBasis(pr.exprs(), pr.names(), xd, cd, gs); err != nil {
+	if st.u == nil {
+		u, err := newBasis(pr.exprs(), pr.names(), xd, cd, gs)
+		if err != nil {
 			return nil, 0, err
 		}
+		if _, p2 := precisions(d, m, u.condBits); p2+64 > gs {
+			gs = p2 + 128
+			if u, err = newBasis(pr.exprs(), pr.names(), xd, cd, gs); err != nil {
+				return nil, 0, err
+			}
+		}
+		st.u = u
 	}
-	qnames := make([]string, len(qfs))
-	for k := range qfs {
-		qnames[k] = qfs[k].String()
-	}
-	q, err := newBasis(qfs, qnames, xd, cd, gs)
-	if err != nil {
-		return nil, 0, err
-	}
-	u.orient(q)
-	p, p2 := precisions(d, m, math.Max(u.condBits, q.condBits))
-	if p2+64 > gs {
-		return nil, 0, fmt.Errorf("the system is too close to linearly dependent on %s: its orthonormalisation loses about %.0f digits", pr.Weight.Label(), u.condBits*math.Log10(2))
-	}
-	h := &homotopy{q: q, u: u}
+	u := st.u
+	gs = u.prec
+	h := &homotopy{u: u}
+	p, p2 := precisions(d, m, u.condBits)
 	iv := pr.Weight.Interval
-	if iv.Lo.Finite() {
-		h.lo = new(big.Float).SetPrec(p2).SetRat(iv.Lo.Value)
+	bounds := func(prec uint) {
+		if iv.Lo.Finite() {
+			h.lo = new(big.Float).SetPrec(prec).SetRat(iv.Lo.Value)
+		}
+		if iv.Hi.Finite() {
+			h.hi = new(big.Float).SetPrec(prec).SetRat(iv.Hi.Value)
+		}
+		h.bu = cloneAt(I, prec)
+		u.solveRT(h.bu, prec)
 	}
-	if iv.Hi.Finite() {
-		h.hi = new(big.Float).SetPrec(p2).SetRat(iv.Hi.Value)
+	tooDependent := func() error {
+		return fmt.Errorf("the system is too close to linearly dependent on %s: its orthonormalisation loses about %.0f digits", pr.Weight.Label(), u.condBits*math.Log10(2))
 	}
-	if h.bq, err = sums(q, x0, w0, p2); err != nil {
-		return nil, 0, err
-	}
-	h.bu = cloneAt(I, p2)
-	u.solveRT(h.bu, p2)
-	method := "Newton continuation (Ma, Rokhlin, Wandzura 1996) from " + startLabel
 	var x1, w1 []*big.Float
-	if start[0] != nil {
-		x1, w1, err = h.newton(ctx, 1, start[0], start[1], p, 0, 40)
-	} else {
-		x1, w1, err = h.continuation(ctx, x0, w0, p)
-	}
-	if errors.Is(err, errNoConvergence) && start[0] == nil {
-		method = "an oversampled positive rule reduced by point elimination and Gauss-Newton (Bremer, Gimbutas, Rokhlin 2010), after the continuation from " + startLabel + " failed"
-		var fx, fw []*big.Float
-		if fx, fw, err = h.fallback(ctx, xd, n, uint(math.Ceil(u.condBits))+128); err == nil {
-			x1, w1, err = h.newton(ctx, 1, fx, fw, p, 0, 40)
+	method := st.method
+	_, c, isLog := logSystem(pr)
+	switch {
+	case p2+64 > gs:
+		return nil, 0, tooDependent()
+	case st.start[0] != nil:
+		bounds(p2)
+		x1, w1, err = h.newton(ctx, 1, st.start[0], st.start[1], p, 0, 40)
+	case isLog:
+		// The log system's own path (logpath.go), where the blend of
+		// two bases runs a node into an end.
+		bounds(p2)
+		var x0, w0 []*big.Float
+		// The path's points are solved to 2^-40 in the raw functions,
+		// which lose about condBits: the precision for that, not p.
+		pathPrec := min(p, (uint(math.Ceil(u.condBits))+128+63)/64*64)
+		if x0, w0, err = logStart(ctx, n, c, pathPrec); err == nil {
+			x1, w1, err = h.newton(ctx, 1, x0, w0, p, 0, 40)
+		}
+		method = "Newton continuation (Ma, Rokhlin, Wandzura 1996) along a power-exponent path x^a_k, (x^b_k - x^a_k)/(b_k - a_k) from the Gauss-Legendre rule"
+		if errors.Is(err, errNoConvergence) {
+			x1, w1, err = nil, nil, nil // the general road below
 		}
 	}
 	if errors.Is(err, errNoConvergence) {
-		return nil, 0, fmt.Errorf("no generalized Gauss rule of %d points was reached for this system on %s: neither the continuation from %s nor point elimination from a positive rule found one (it may not exist with positive weights and interior nodes)", n, pr.Weight.Label(), startLabel)
+		return nil, 0, fmt.Errorf("no generalized Gauss rule of %d points was reached for this system on %s: the rule of the attempt before did not refine", n, pr.Weight.Label())
 	}
 	if err != nil {
 		return nil, 0, err
+	}
+	if x1 == nil {
+		qfs, x0, w0, startLabel, err := startSystem(ctx, pr.Weight, n)
+		if err != nil {
+			return nil, 0, err
+		}
+		if st.q == nil {
+			qnames := make([]string, len(qfs))
+			for k := range qfs {
+				qnames[k] = qfs[k].String()
+			}
+			if st.q, err = newBasis(qfs, qnames, xd, cd, gs); err != nil {
+				return nil, 0, err
+			}
+		}
+		h.q = st.q
+		u.orient(h.q)
+		if p, p2 = precisions(d, m, math.Max(u.condBits, h.q.condBits)); p2+64 > gs {
+			return nil, 0, tooDependent()
+		}
+		bounds(p2)
+		if h.bq, err = sums(h.q, x0, w0, p2); err != nil {
+			return nil, 0, err
+		}
+		method = "Newton continuation (Ma, Rokhlin, Wandzura 1996) from " + startLabel
+		x1, w1, err = h.continuation(ctx, x0, w0, p)
+		if errors.Is(err, errNoConvergence) {
+			method = "an oversampled positive rule reduced by point elimination and Gauss-Newton (Bremer, Gimbutas, Rokhlin 2010), after the continuation from " + startLabel + " failed"
+			var fx, fw []*big.Float
+			if fx, fw, err = h.fallback(ctx, xd, n, uint(math.Ceil(u.condBits))+128); err == nil {
+				x1, w1, err = h.newton(ctx, 1, fx, fw, p, 0, 40)
+			}
+		}
+		if errors.Is(err, errNoConvergence) {
+			return nil, 0, fmt.Errorf("no generalized Gauss rule of %d points was reached for this system on %s: neither the continuation from %s nor point elimination from a positive rule found one (it may not exist with positive weights and interior nodes)", n, pr.Weight.Label(), startLabel)
+		}
+		if err != nil {
+			return nil, 0, err
+		}
 	}
 	x2, w2, err := h.newton(ctx, 1, x1, w1, p2, 0, 20)
 	if err != nil {
@@ -375,7 +415,7 @@ func gaussAttempt(ctx context.Context, pr Problem, n, D, d, md int, start [2][]*
 		}
 	}
 	if extra > 0 {
-		last[0], last[1] = x2, w2
+		st.start, st.method = [2][]*big.Float{x2, w2}, method
 		return nil, extra, fmt.Errorf("the moments' error bounds leave fewer than %d digits of the rule", d)
 	}
 	texts := [2][]string{make([]string, n), make([]string, n)}

@@ -13,7 +13,10 @@
 // however close to dependent the functions are) -> Newton's method on the
 // moment equations along a continuation from a system whose rule is known
 // (the Gauss rule of w for polynomials; for exponentials on [a, inf) with
-// weight 1, the Gauss-Legendre rule mapped by t = e^-(x-a)) -> a rule
+// weight 1, the Gauss-Legendre rule mapped by t = e^-(x-a); for the log
+// system x^k, x^k log x on [0, c] with weight 1, a power-exponent path
+// x^a, (x^b - x^a)/(b - a) from the Gauss-Legendre rule, on which every
+// intermediate system has its rule, logpath.go) -> a rule
 // computed at two working precisions, printed only where both agree, and
 // verified against every function's moment.
 //

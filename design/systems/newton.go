@@ -104,13 +104,28 @@ func (h *homotopy) valid(xs, ws []*big.Float) bool {
 
 var errNoConvergence = errors.New("newton did not converge")
 
-// newton solves the equations at s from (xs, ws), at prec bits, until the
+// equationSystem is a family of 2N moment equations in N nodes and N
+// weights with a parameter s in [0, 1]: the residuals and Jacobian at s,
+// and the region (nodes ordered inside, weights positive) the iterates
+// must stay in. The homotopy between two bases is one; the power-exponent
+// path of the log system (logpath.go) is another.
+type equationSystem interface {
+	equations(s float64, xs, ws []*big.Float, prec uint, jac bool) ([]*big.Float, [][]*big.Float, error)
+	valid(xs, ws []*big.Float) bool
+}
+
+// newton is newtonOn for the homotopy.
+func (h *homotopy) newton(ctx context.Context, s float64, xs, ws []*big.Float, prec uint, tolBits int, maxIter int) ([]*big.Float, []*big.Float, error) {
+	return newtonOn(ctx, h, s, xs, ws, prec, tolBits, maxIter)
+}
+
+// newtonOn solves the equations of h at s from (xs, ws), at prec bits, until the
 // largest relative correction is below 2^-tolBits, or, for a final solve
 // (tolBits 0), until the corrections stop decreasing below 2^-(prec/2).
 // A step that would leave the nodes unordered or outside, or a weight
 // non-positive, is halved up to 10 times (Ma, Rokhlin and Wandzura keep
 // the nodes so). It returns the new nodes and weights at prec bits.
-func (h *homotopy) newton(ctx context.Context, s float64, xs, ws []*big.Float, prec uint, tolBits int, maxIter int) ([]*big.Float, []*big.Float, error) {
+func newtonOn(ctx context.Context, h equationSystem, s float64, xs, ws []*big.Float, prec uint, tolBits int, maxIter int) ([]*big.Float, []*big.Float, error) {
 	n := len(xs)
 	x := cloneAt(xs, prec)
 	w := cloneAt(ws, prec)
@@ -186,22 +201,34 @@ func cloneAt(v []*big.Float, prec uint) []*big.Float {
 }
 
 // continuation follows the homotopy from the start rule at s = 0 to s = 1
-// with adaptive steps: a step whose Newton iteration fails (or leaves the
-// nodes' order or the interval) is halved, down to 2^-5 and at most 6
-// times in all (a path that needs more is usually ending: a node reaching
-// an end of the interval or a weight reaching zero; the fallback is
-// cheaper than following it); after a success
-// the step doubles. Intermediate points are solved to 2^-40; each starts
-// from the secant through the last two solutions when that guess is
-// itself valid. The final point is solved to prec.
+// (follow, with steps halved down to 2^-5 and at most 6 times in all: a
+// path that needs more is usually ending, a node reaching an end of the
+// interval or a weight reaching zero, and the fallback is cheaper than
+// following it), then solves the final point to prec.
 func (h *homotopy) continuation(ctx context.Context, xs, ws []*big.Float, prec uint) ([]*big.Float, []*big.Float, error) {
+	x, w, err := follow(ctx, h, xs, ws, prec, 1, 1, 0x1p-5, 6)
+	if err != nil {
+		return nil, nil, err
+	}
+	return h.newton(ctx, 1, x, w, prec, 0, 40)
+}
+
+// follow tracks the solution of h from the rule (xs, ws) at s = 0 to
+// s = 1 with adaptive steps, the first ds0: a step whose Newton iteration
+// fails (or leaves the nodes' order or the interval) is halved, down to
+// minStep and at most maxFails times in all; after a success the step
+// doubles, up to maxStep.
+// Points are solved to 2^-40, the one at s = 1 included; each starts from
+// the secant through the last two solutions when that guess is itself
+// valid.
+func follow(ctx context.Context, h equationSystem, xs, ws []*big.Float, prec uint, ds0, maxStep, minStep float64, maxFails int) ([]*big.Float, []*big.Float, error) {
 	type point struct {
 		s      float64
 		xs, ws []*big.Float
 	}
 	cur := point{0, cloneAt(xs, prec), cloneAt(ws, prec)}
 	var prev *point
-	ds := 1.0
+	ds := ds0
 	fails := 0
 	for cur.s < 1 {
 		s1 := math.Min(1, cur.s+ds)
@@ -212,21 +239,16 @@ func (h *homotopy) continuation(ctx context.Context, xs, ws []*big.Float, prec u
 				gx, gw = cur.xs, cur.ws
 			}
 		}
-		nx, nw, err := h.newton(ctx, s1, gx, gw, prec, 40, 14)
+		nx, nw, err := newtonOn(ctx, h, s1, gx, gw, prec, 40, 14)
 		if debugCont {
 			println("s", s1, "ds", ds, err == nil)
-			if err == nil && ds < 1e-6 {
-				for i := range nx {
-					println(nx[i].Text('g', 8), nw[i].Text('g', 8))
-				}
-			}
 		}
 		if err != nil && !errors.Is(err, errNoConvergence) {
 			return nil, nil, err
 		}
 		if err != nil {
 			ds /= 2
-			if fails++; ds < 0x1p-5 || fails > 6 {
+			if fails++; ds < minStep || fails > maxFails {
 				return nil, nil, errNoConvergence
 			}
 			continue
@@ -234,9 +256,9 @@ func (h *homotopy) continuation(ctx context.Context, xs, ws []*big.Float, prec u
 		p := cur
 		prev = &p
 		cur = point{s1, nx, nw}
-		ds *= 2
+		ds = math.Min(2*ds, maxStep)
 	}
-	return h.newton(ctx, 1, cur.xs, cur.ws, prec, 0, 40)
+	return cur.xs, cur.ws, nil
 }
 
 // secant extrapolates linearly from (s0, z0), (s1, z1) to s.
