@@ -76,7 +76,7 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 		keepN, keepW = append(keepN, p), append(keepW, wts[i])
 	}
 	nodes, wts = keepN, keepW
-	if dropped > 0 {
+	if dropped > 0 && req.Digits == 0 {
 		r.Note = joinNote(r.Note, fmt.Sprintf("%d nodes within rounding of the interface were left out", dropped))
 	}
 	if len(nodes) == 0 {
@@ -109,7 +109,7 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 		r.Weights = append(r.Weights, wts[i])
 	}
 	if req.Digits > 0 {
-		if err := refine(ctx, g, r); err != nil {
+		if err := refine(ctx, g, r, wexpr); err != nil {
 			return nil, err
 		}
 		return r, nil
