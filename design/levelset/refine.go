@@ -291,4 +291,3 @@ func (g *geom) compareX(a, b *xrule, prec uint) float64 {
 	}
 	return e
 }
-
