@@ -19,6 +19,9 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 	if req.Order < 1 || req.Order > MaxOrder {
 		return nil, fmt.Errorf("--degree %d: give the order of the one-dimensional rules, 1 to %d", req.Order, MaxOrder)
 	}
+	if req.Digits < 0 || req.Digits > MaxDigits {
+		return nil, fmt.Errorf("--digits %d: a cut-element rule takes 1 to %d digits", req.Digits, MaxDigits)
+	}
 	g, err := geometry(req, nil)
 	if err != nil {
 		return nil, err

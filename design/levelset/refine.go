@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"strconv"
+	"strings"
 
 	"quadwright/design"
 	"quadwright/moments"
@@ -290,4 +292,26 @@ func (g *geom) compareX(a, b *xrule, prec uint) float64 {
 		e = math.Max(e, math.Abs(f))
 	}
 	return e
+}
+
+// CheckBoxText refuses, when digits > 0, a --box bound whose decimal text
+// is not exactly the float64 it was read as (0.1 is not; 0.25 is): the
+// extended-precision rule is built on the float64 bounds, and its digits
+// would otherwise belong to a slightly different box.
+func CheckBoxText(texts []string, digits int) error {
+	if digits == 0 {
+		return nil
+	}
+	for _, s := range texts {
+		s = strings.TrimSpace(s)
+		q, ok := new(big.Rat).SetString(s)
+		v, err := strconv.ParseFloat(s, 64)
+		if !ok || err != nil {
+			return fmt.Errorf("--box: %q is not a number", s)
+		}
+		if f := new(big.Rat).SetFloat64(v); f == nil || f.Cmp(q) != 0 {
+			return fmt.Errorf("--box: with --digits every bound must be a binary fraction exactly (such as 0.25 or -1.5), and %s is not", s)
+		}
+	}
+	return nil
 }
