@@ -44,6 +44,10 @@ func evalDual[T scalar[T]](n *node, vals []T, nv int, num func(float64) T) dual[
 			c = math.E
 		}
 		r.v = num(c)
+		// An extended-precision scalar takes the exact rational instead.
+		if k, ok := any(zero).(interface{ exact(*node) T }); ok {
+			r.v = k.exact(n)
+		}
 		for i := 0; i < nv; i++ {
 			r.d[i] = zero
 		}

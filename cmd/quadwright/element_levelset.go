@@ -19,7 +19,7 @@ type levelSetOptions struct {
 }
 
 func addLevelSetFlags(f *pflag.FlagSet, o *levelSetOptions) {
-	f.StringVar(&o.levelSet, "level-set", "", "level-set function of x, y[, z]: the rule is for the part of the element where it is < 0 (--side inside), > 0 (outside), or for the surface where it vanishes (surface); --degree is then the order of the one-dimensional Gauss-Legendre rules")
+	f.StringVar(&o.levelSet, "level-set", "", "level-set function of x, y[, z]: the rule is for the part of the element where it is < 0 (--side inside), > 0 (outside), or for the surface where it vanishes (surface); --degree is then the order of the one-dimensional Gauss-Legendre rules; with --digits D (1 to 100) the rule is recomputed at extended precision, weights to D significant digits, coordinates to D digits of the element's size")
 	f.StringVar(&o.side, "side", "inside", "with --level-set: inside (level set < 0), outside (> 0) or surface (= 0, with its area or length measure)")
 	f.StringVar(&o.box, "box", "", "with --level-set: a rectangle A,B,C,D ([A,B] x [C,D]) or box A,B,C,D,E,F instead of --shape")
 }
@@ -79,6 +79,11 @@ func runLevelSetElement(ctx context.Context, o *elementOptions, cmd *cobra.Comma
 		return fmt.Errorf("--digits auto: give a number of digits for a cut-element rule, for example --digits 30")
 	}
 	req.Digits = digits
+	if ls.box != "" {
+		if err := levelset.CheckBoxText(strings.Split(ls.box, ","), digits); err != nil {
+			return err
+		}
+	}
 	rule, err := levelset.Build(ctx, req)
 	if err != nil {
 		return err
@@ -120,7 +125,7 @@ func writeLevelSetRule(w *strings.Builder, r *levelset.Rule, format string) erro
 		fmt.Fprintf(w, "# measure:  %.17g\n", r.Measure)
 		fmt.Fprintf(w, "# estimated error: %.2e (%s)\n", r.EstimatedError, rulefile.ErrorTestText)
 		if r.Digits > 0 {
-			fmt.Fprintf(w, "# digits:   %d significant\n", r.Digits)
+			fmt.Fprintf(w, "# digits:   %d (weights significant; coordinates to %d digits of the element's size), every one confirmed by two working precisions\n", r.Digits, r.Digits)
 		} else {
 			fmt.Fprintf(w, "# digits:   float64 (shortest round-trip form)\n")
 		}

@@ -28,3 +28,15 @@ func BenchmarkLevelSetBall(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkLevelSetDiscDigits builds the 30-digit rule of order 40 for the
+// disc x^2 + y^2 < 0.49 on the reference quadrilateral (the accuracy test
+// of TestDiscThirtyDigits), error estimate included. No target yet.
+func BenchmarkLevelSetDiscDigits(b *testing.B) {
+	req := Request{Shape: "quadrilateral", LevelSet: "x^2+y^2-0.49", Order: 40, Digits: 30}
+	for i := 0; i < b.N; i++ {
+		if _, err := Build(context.Background(), req); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

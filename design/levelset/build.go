@@ -19,6 +19,9 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 	if req.Order < 1 || req.Order > MaxOrder {
 		return nil, fmt.Errorf("--degree %d: give the order of the one-dimensional rules, 1 to %d", req.Order, MaxOrder)
 	}
+	if req.Digits < 0 || req.Digits > MaxDigits {
+		return nil, fmt.Errorf("--digits %d: a cut-element rule takes 1 to %d digits", req.Digits, MaxDigits)
+	}
 	g, err := geometry(req, nil)
 	if err != nil {
 		return nil, err
@@ -76,7 +79,7 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 		keepN, keepW = append(keepN, p), append(keepW, wts[i])
 	}
 	nodes, wts = keepN, keepW
-	if dropped > 0 {
+	if dropped > 0 && req.Digits == 0 {
 		r.Note = joinNote(r.Note, fmt.Sprintf("%d nodes within rounding of the interface were left out", dropped))
 	}
 	if len(nodes) == 0 {
@@ -109,7 +112,7 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 		r.Weights = append(r.Weights, wts[i])
 	}
 	if req.Digits > 0 {
-		if err := refine(ctx, g, r); err != nil {
+		if err := refine(ctx, g, r, wexpr); err != nil {
 			return nil, err
 		}
 		return r, nil

@@ -14,7 +14,12 @@
 // steep, which would slow the convergence). Along each line the roots of
 // phi are bracketed and polished by safeguarded Newton steps, and every
 // piece gets a Gauss-Legendre rule of the requested order Q (from package
-// design/fast; rules are built in float64 only so far). Triangles and
+// design/fast in float64). With Request.Digits the float64 plan (boxes,
+// height directions, which roots cut each line and which pieces are kept)
+// is recorded and replayed at two extended working precisions: the roots
+// by bracketed Newton steps on moments.Expr.GradBig, the Gauss-Legendre
+// rules from design.Gauss; every printed digit must agree between the
+// two (refine.go, extended.go, tape.go). Triangles and
 // tetrahedra are reached from the unit square and cube through the
 // collapsed (Duffy) map, its Jacobian folded into the weights.
 //

@@ -23,7 +23,11 @@ func (bd *builder) line(k int, free []int, b [3]span, p [3]float64, w float64, f
 		}
 		roots = bd.rootsOn(&fs[i], k, free, p, a, c, robust, roots)
 	}
+	// The line is recorded (tape.go) before anything is emitted: an
+	// emission runs the lines of the level above, whose records follow.
 	if surface {
+		var emitted []float64
+		var ws []float64
 		for _, t := range roots {
 			q := p
 			q[k] = t
@@ -32,12 +36,19 @@ func (bd *builder) line(k int, free []int, b [3]span, p [3]float64, w float64, f
 			if gu[k] == 0 || math.IsNaN(n) || math.IsInf(n, 0) {
 				continue
 			}
-			emit(q, w*n/math.Abs(gu[k]))
+			emitted, ws = append(emitted, t), append(ws, w*n/math.Abs(gu[k]))
+		}
+		bd.recSurface(k, free, b, emitted)
+		for i, t := range emitted {
+			q := p
+			q[k] = t
+			emit(q, ws[i])
 		}
 		return
 	}
 	sort.Float64s(roots)
 	cuts := append(append([]float64{a}, roots...), c)
+	var kept []int
 	for j := 0; j+1 < len(cuts); j++ {
 		t0, t1 := cuts[j], cuts[j+1]
 		if !(t1 > t0) {
@@ -52,9 +63,14 @@ func (bd *builder) line(k int, free []int, b [3]span, p [3]float64, w float64, f
 				break
 			}
 		}
-		if !ok {
-			continue
+		if ok {
+			kept = append(kept, j)
 		}
+	}
+	bd.recLine(k, free, b, cuts, kept)
+	for _, j := range kept {
+		t0, t1 := cuts[j], cuts[j+1]
+		q := p
 		h, m := 0.5*(t1-t0), 0.5*(t1+t0)
 		for t := range bd.gx {
 			q[k] = m + h*bd.gx[t]
@@ -149,8 +165,10 @@ func (bd *builder) bracketed(f *fn, k int, free []int, p [3]float64, a, c, ha, h
 		if a != bd.g.lo[k] {
 			return roots
 		}
+		bd.recRoot(f, a, a, a)
 		return append(roots, a)
 	case hc == 0:
+		bd.recRoot(f, c, c, c)
 		return append(roots, c)
 	case (ha > 0) == (hc > 0), math.IsNaN(ha), math.IsNaN(hc):
 		return roots
@@ -165,6 +183,7 @@ func (bd *builder) bracketed(f *fn, k int, free []int, p [3]float64, a, c, ha, h
 		q[k] = t
 		v, gu, _ := bd.g.eval(f.at(q, free))
 		if v == 0 {
+			bd.recRoot(f, t, a, c)
 			return append(roots, t)
 		}
 		if v < 0 {
@@ -183,6 +202,7 @@ func (bd *builder) bracketed(f *fn, k int, free []int, p [3]float64, a, c, ha, h
 		t = next
 	}
 	// The last iterate or the better end of the final bracket.
+	bd.recRoot(f, t, a, c)
 	return append(roots, t)
 }
 

@@ -3,11 +3,324 @@ package levelset
 import (
 	"context"
 	"fmt"
+	"math"
+	"math/big"
+	"strconv"
+	"strings"
+
+	"quadwright/design"
+	"quadwright/moments"
+	"quadwright/precision"
 )
 
-// refine would recompute the rule at extended precision (Request.Digits);
-// the extended-precision path is not built yet, so --digits is refused
-// rather than printing float64 values as if they carried more digits.
-func refine(ctx context.Context, g *geom, r *Rule) error {
-	return fmt.Errorf("--digits %d: cut-element rules are built in float64 only so far; leave out --digits", r.Digits)
+// MaxDigits bounds Request.Digits: the cost of a rule grows with the
+// working precision, about linearly in the digits up to here.
+const MaxDigits = 100
+
+// refine recomputes the rule r (built in float64 on g) at extended
+// precision and prints Request.Digits digits. The float64 plan of the
+// rule, and that of order Q+4 for the estimated error, are recorded
+// (tape.go) and replayed (extended.go) at two working precisions p1 =
+// precision.WorkingPrec(D, Q) and p2 = p1 + 64, each with its own
+// Gauss-Legendre rule from design.Gauss (D+12 and D+32 digits). Every
+// printed value must be the same from both, else the rule is refused.
+// Weights print D significant digits; node coordinates D digits relative
+// to the element's size (the largest side of its bounding box), so that
+// a coordinate within 10^-D of that size from 0 prints as 0 instead of
+// digits of rounding noise. Each printed node is then read back and must
+// lie strictly on the side asked (surface: within 10 units of the last
+// printed place, times the gradient, of the interface), at p2 bits.
+func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
+	d := r.Digits
+	if d < 1 || d > MaxDigits {
+		return fmt.Errorf("--digits %d: a cut-element rule takes 1 to %d digits", d, MaxDigits)
+	}
+	size := 0.0
+	for k := 0; k < g.dim; k++ {
+		size = math.Max(size, g.hi[k]-g.lo[k])
+	}
+	p1 := precision.WorkingPrec(d, r.Order)
+	p2 := p1 + 64
+	runs := [2]*xrule{}
+	for i, p := range []uint{p1, p2} {
+		x, err := runRule(ctx, g, r.Side, r.Order, p, d+12+20*i, size, wexpr)
+		if err != nil {
+			return err
+		}
+		runs[i] = x
+	}
+	a, b := runs[0], runs[1]
+	if len(a.nodes) != len(b.nodes) {
+		panic("levelset: two replays of one tape differ in length")
+	}
+	n := len(a.nodes)
+	r.Nodes, r.Weights = make([][]float64, n), make([]float64, n)
+	r.PrintedNodes, r.PrintedWeights = make([][]string, n), make([]string, n)
+	unit := math.Pow(10, math.Floor(math.Log10(size))-float64(d)+1) // one unit in the last printed place of a coordinate
+	for i := 0; i < n; i++ {
+		for k := 0; k < g.dim; k++ {
+			xf, _ := b.nodes[i][k].Float64()
+			sa, sb := printCoord(a.nodes[i][k], xf, unit, d), printCoord(b.nodes[i][k], xf, unit, d)
+			if sa != sb {
+				return fmt.Errorf("--digits %d: a node coordinate came out %s at %d bits and %s at %d bits; the rule could not be confirmed to that many digits", d, sa, p1, sb, p2)
+			}
+			r.Nodes[i] = append(r.Nodes[i], xf)
+			r.PrintedNodes[i] = append(r.PrintedNodes[i], sb)
+		}
+		if b.wts[i].Sign() <= 0 {
+			return fmt.Errorf("level set %q: a weight came out not positive at (%s); the rule is refused", r.LevelSet, coords(r.Nodes[i]))
+		}
+		sa, sb := precision.FormatSig(a.wts[i], d), precision.FormatSig(b.wts[i], d)
+		if sa != sb {
+			return fmt.Errorf("--digits %d: a weight came out %s at %d bits and %s at %d bits; the rule could not be confirmed to that many digits", d, sa, p1, sb, p2)
+		}
+		r.Weights[i], _ = b.wts[i].Float64()
+		r.PrintedWeights[i] = sb
+		if err := g.checkPrinted(r, r.PrintedNodes[i], p2, unit); err != nil {
+			return err
+		}
+	}
+	// The estimated error against the rule of order Q+4: the float64 one
+	// of Build where it is well above float64 rounding, else both rules
+	// at p1 (which costs more than the rule itself).
+	if !(r.EstimatedError >= float64EstimateFloor) {
+		hi, err := runRule(ctx, g, r.Side, r.Order+4, p1, d+12, size, wexpr)
+		if err != nil {
+			return err
+		}
+		r.EstimatedError = g.compareX(a, hi, p1)
+	}
+	m := new(big.Float).SetPrec(p2)
+	for _, w := range b.wts {
+		m.Add(m, w)
+	}
+	r.Measure, _ = m.Float64()
+	r.Method += fmt.Sprintf("; roots and Gauss-Legendre rules at %d and %d bits, which agree in every printed digit", p1, p2)
+	return nil
+}
+
+// float64EstimateFloor is the estimated error above which the float64
+// comparison of Build is kept at extended precision: a thousand times the
+// rounding of float64 sums of a few thousand terms (common practice).
+const float64EstimateFloor = 1e-10
+
+// xrule is a rule at extended precision: nodes in x and weights (the
+// Jacobian of the map and the weight function included).
+type xrule struct {
+	nodes []xpoint
+	wts   []*big.Float
+}
+
+// runRule records the float64 plan of order q and replays it at prec
+// bits, with Gauss-Legendre rules of glDigits digits.
+func runRule(ctx context.Context, g *geom, side Side, q int, prec uint, glDigits int, size float64, wexpr *moments.Expr) (*xrule, error) {
+	tp := &tape{}
+	_, _, bd := pointsTaped(g, side, q, tp)
+	if bd.overflow {
+		return nil, fmt.Errorf("level set: needs more than %d subdivisions of the element to resolve at order %d", maxBoxes, q)
+	}
+	gx, gw, err := gaussLegendreBig(ctx, q, glDigits, prec)
+	if err != nil {
+		return nil, err
+	}
+	rp := &replay{g: g, prec: prec, gx: gx, gw: gw, ev: tp.ev}
+	rp.tol = new(big.Float).SetPrec(prec).SetFloat64(size)
+	rp.tol.SetMantExp(rp.tol, -int(prec)+8)
+	out := &xrule{}
+	var werr error
+	rp.integrate(func(u xpoint, w *big.Float) {
+		if rp.err != nil || werr != nil {
+			return
+		}
+		x := g.toXBig(u, prec)
+		wt := new(big.Float).SetPrec(prec).Mul(w, g.jacBig(u, prec))
+		if wexpr != nil {
+			v, err := wexpr.EvalBig(prec, x[:g.dim]...)
+			if err != nil || v.Sign() <= 0 {
+				werr = fmt.Errorf("weight %q: not positive and finite at a node of the rule", wexpr.String())
+				return
+			}
+			wt.Mul(wt, v)
+		}
+		var c xpoint
+		for k := 0; k < g.dim; k++ {
+			c[k] = new(big.Float).SetPrec(prec).Set(x[k])
+		}
+		out.nodes, out.wts = append(out.nodes, c), append(out.wts, wt)
+	})
+	if rp.err != nil {
+		return nil, rp.err
+	}
+	if werr != nil {
+		return nil, werr
+	}
+	if rp.pos != len(tp.ev) {
+		panic("levelset: the replay left events of its tape")
+	}
+	return out, ctx.Err()
+}
+
+// gaussLegendreBig is the q-point Gauss-Legendre rule on [-1, 1] from the
+// extended-precision engine of package design (Jacobi with alpha = beta =
+// 0), confirmed there to digits digits, rounded to prec bits.
+func gaussLegendreBig(ctx context.Context, q, digits int, prec uint) (x, w []*big.Float, err error) {
+	fam, err := moments.NewFamily("jacobi", new(big.Rat), new(big.Rat), nil)
+	if err != nil {
+		panic("levelset: " + err.Error())
+	}
+	rl, err := design.Gauss(ctx, design.FamilySource{Family: fam}, design.Request{Points: q, Digits: digits})
+	if err != nil {
+		return nil, nil, err
+	}
+	for i := range rl.NodeValues {
+		x = append(x, new(big.Float).SetPrec(prec).Set(rl.NodeValues[i]))
+		w = append(w, new(big.Float).SetPrec(prec).Set(rl.WeightValues[i]))
+	}
+	return x, w, nil
+}
+
+// printCoord prints the coordinate v with digits relative to the
+// element's size: unit is one unit in the last place (10^(1-d) times the
+// size's power of ten), xf the float64 value deciding how many
+// significant digits that makes, so that both precisions' strings are cut
+// at the same place.
+func printCoord(v *big.Float, xf, unit float64, d int) string {
+	ax := math.Abs(xf)
+	if ax < unit/2 {
+		return "0"
+	}
+	sig := int(math.Floor(math.Log10(ax))-math.Log10(unit)) + 1
+	sig = max(1, min(sig, d))
+	return precision.FormatSig(v, sig)
+}
+
+// checkPrinted reads the printed node back and tests its side at prec
+// bits.
+func (g *geom) checkPrinted(r *Rule, node []string, prec uint, unit float64) error {
+	var u xpoint
+	x := make([]*big.Float, g.dim)
+	for k, s := range node {
+		v, _, err := big.ParseFloat(s, 10, prec, big.ToNearestEven)
+		if err != nil {
+			panic("levelset: a printed coordinate does not read back: " + s)
+		}
+		x[k] = v
+		u[k] = v
+	}
+	gr := make([]*big.Float, g.dim)
+	v, err := g.phi.GradBig(prec, x, gr)
+	if err != nil {
+		return fmt.Errorf("level set %q: undefined at the node (%s)", r.LevelSet, joinCoords(node))
+	}
+	ok := false
+	switch r.Side {
+	case Inside:
+		ok = v.Sign() < 0
+	case Outside:
+		ok = v.Sign() > 0
+	default:
+		n := new(big.Float).SetPrec(prec)
+		for _, c := range gr {
+			n.Add(n, new(big.Float).Mul(c, c))
+		}
+		n.Sqrt(n)
+		n.Mul(n, big.NewFloat(10*unit))
+		ok = new(big.Float).Abs(v).Cmp(n) <= 0
+	}
+	if !ok {
+		return fmt.Errorf("level set %q: the printed node (%s) is not on the %s side to %d digits; the rule is refused", r.LevelSet, joinCoords(node), r.Side, r.Digits)
+	}
+	return nil
+}
+
+func joinCoords(s []string) string {
+	out := ""
+	for i, c := range s {
+		if i > 0 {
+			out += ", "
+		}
+		out += c
+	}
+	return out
+}
+
+// compareX is compare (the estimated error) for two extended-precision
+// rules, summed at prec bits.
+func (g *geom) compareX(a, b *xrule, prec uint) float64 {
+	lo, hi := [3]float64{}, [3]float64{}
+	for i, v := range g.vertices() {
+		for k := range v {
+			if i == 0 || v[k] < lo[k] {
+				lo[k] = v[k]
+			}
+			if i == 0 || v[k] > hi[k] {
+				hi[k] = v[k]
+			}
+		}
+	}
+	sum := func(x *xrule) []*big.Float {
+		s := make([]*big.Float, 1+g.dim+g.dim*(g.dim+1)/2)
+		for i := range s {
+			s[i] = new(big.Float).SetPrec(prec)
+		}
+		t := new(big.Float).SetPrec(prec)
+		for i, p := range x.nodes {
+			var xi [3]*big.Float
+			for k := 0; k < g.dim; k++ {
+				// (2 x - lo - hi) / (hi - lo)
+				xi[k] = new(big.Float).SetPrec(prec).SetMantExp(p[k], 1)
+				xi[k].Sub(xi[k], big.NewFloat(lo[k]+hi[k]))
+				xi[k].Quo(xi[k], big.NewFloat(hi[k]-lo[k]))
+			}
+			w := x.wts[i]
+			s[0].Add(s[0], w)
+			m := 1
+			for k := 0; k < g.dim; k++ {
+				s[m].Add(s[m], t.Mul(w, xi[k]))
+				m++
+			}
+			for k := 0; k < g.dim; k++ {
+				for j := k; j < g.dim; j++ {
+					t.Mul(w, xi[k])
+					s[m].Add(s[m], t.Mul(t, xi[j]))
+					m++
+				}
+			}
+		}
+		return s
+	}
+	sa, sb := sum(a), sum(b)
+	if len(a.nodes) == 0 || len(b.nodes) == 0 || sb[0].Sign() == 0 {
+		return math.Inf(1)
+	}
+	e := 0.0
+	for j := range sa {
+		d := new(big.Float).SetPrec(prec).Sub(sa[j], sb[j])
+		d.Quo(d, sb[0])
+		f, _ := d.Float64()
+		e = math.Max(e, math.Abs(f))
+	}
+	return e
+}
+
+// CheckBoxText refuses, when digits > 0, a --box bound whose decimal text
+// is not exactly the float64 it was read as (0.1 is not; 0.25 is): the
+// extended-precision rule is built on the float64 bounds, and its digits
+// would otherwise belong to a slightly different box.
+func CheckBoxText(texts []string, digits int) error {
+	if digits == 0 {
+		return nil
+	}
+	for _, s := range texts {
+		s = strings.TrimSpace(s)
+		q, ok := new(big.Rat).SetString(s)
+		v, err := strconv.ParseFloat(s, 64)
+		if !ok || err != nil {
+			return fmt.Errorf("--box: %q is not a number", s)
+		}
+		if f := new(big.Rat).SetFloat64(v); f == nil || f.Cmp(q) != 0 {
+			return fmt.Errorf("--box: with --digits every bound must be a binary fraction exactly (such as 0.25 or -1.5), and %s is not", s)
+		}
+	}
+	return nil
 }

@@ -45,7 +45,7 @@ type Request struct {
 	Side     Side
 	Order    int    // points of every one-dimensional Gauss-Legendre rule, 1..MaxOrder
 	Weight   string // optional weight w(x, y[, z]) > 0 multiplying the weights
-	Digits   int    // 0: float64 mode; more is refused for now (see refine)
+	Digits   int    // 0: float64 mode; 1..MaxDigits: extended precision (see refine)
 }
 
 // MaxOrder bounds Request.Order.
@@ -150,7 +150,12 @@ func gaussLegendre(n int) (x, w []float64) {
 // and weights (Jacobian included, weight function not), and the builder's
 // counters.
 func points(g *geom, side Side, q int) (nodes [][3]float64, wts []float64, bd *builder) {
-	bd = &builder{g: g, q: q, maxDepth: 12 * g.dim, maxSlope: slopeBound}
+	return pointsTaped(g, side, q, nil)
+}
+
+// pointsTaped is points recording its plan on tp (when not nil).
+func pointsTaped(g *geom, side Side, q int, tp *tape) (nodes [][3]float64, wts []float64, bd *builder) {
+	bd = &builder{g: g, q: q, maxDepth: 12 * g.dim, maxSlope: slopeBound, tape: tp}
 	bd.gx, bd.gw = gaussLegendre(q)
 	var b [3]span
 	free := make([]int, g.dim)

@@ -54,6 +54,7 @@ type builder struct {
 	subdivided, forced int
 	overflow           bool // more than maxBoxes splits: the rule is refused
 	lineWork           int
+	tape               *tape // when not nil, the run is recorded (tape.go)
 }
 
 // integrate emits the rule on the box b over the coordinates free for the
@@ -73,6 +74,7 @@ func (bd *builder) integrate(free []int, b [3]span, fs []fn, surface bool, depth
 		}
 		if surface {
 			if v.Lo > 0 || v.Hi < 0 {
+				bd.rec(event{kind: evEmpty})
 				return
 			}
 			kept = append(kept, f)
@@ -85,6 +87,7 @@ func (bd *builder) integrate(free []int, b [3]span, fs []fn, surface bool, depth
 			// lines, whose end roots carry it.
 			continue
 		case v.Lo >= 0 && f.s < 0, v.Hi <= 0 && f.s > 0:
+			bd.rec(event{kind: evEmpty})
 			return
 		case v.Lo >= 0 || v.Hi <= 0:
 			continue
@@ -93,11 +96,13 @@ func (bd *builder) integrate(free []int, b [3]span, fs []fn, surface bool, depth
 	}
 	fs = kept
 	if len(fs) == 0 {
+		bd.rec(event{kind: evTensor, free: free, b: b})
 		bd.tensor(free, b, emit)
 		return
 	}
 	if len(free) == 1 {
 		var p [3]float64
+		bd.rec(event{kind: evLine1})
 		bd.line(free[0], free, b, p, 1, fs, surface, true, emit)
 		return
 	}
@@ -110,6 +115,7 @@ func (bd *builder) integrate(free []int, b [3]span, fs []fn, surface bool, depth
 	// relatively further away.
 	if (!mono || ratio > bd.maxSlope) && depth < bd.maxDepth && !bd.overflow {
 		bd.subdivided++
+		bd.rec(event{kind: evSplit})
 		bd.split(free, b, fs, surface, depth, emit)
 		return
 	}
@@ -140,6 +146,7 @@ func (bd *builder) integrate(free []int, b [3]span, fs []fn, surface bool, depth
 			derived = append(derived, d)
 		}
 	}
+	bd.rec(event{kind: evReduce, k: k})
 	bd.integrate(sub, b, derived, false, 0, func(p [3]float64, w float64) {
 		bd.line(k, free, b, p, w, fs, surface, !mono, emit)
 	})
