@@ -102,7 +102,13 @@ func Gauss(ctx context.Context, m Measure, req Request) (*Rule, error) {
 		if err != nil {
 			return nil, err
 		}
-		return gaussStage(ctx, rec, n, p, startNodes(prev))
+		start := startNodes(prev)
+		if prev == nil {
+			if st, ok := mfStart(m, rec, n, req.Digits); ok {
+				start = st // family_mf.go: asymptotic start, refined in double-double
+			}
+		}
+		return gaussStage(ctx, rec, n, p, start)
 	})
 	if err != nil {
 		return nil, err
