@@ -111,50 +111,62 @@ func finiteDD(x precision.DD) bool {
 }
 
 // ddNewton refines x towards a zero of pi_n (n = len(al)) by Newton's
-// method on the forward recurrence in double-double, and reports whether
-// the step fell to the double-double level (2^-96 |x|, or x is 0).
+// method on the forward recurrence in double-double. As in riseNewton the
+// step's own values say how good the new iterate is, about K delta^2 with
+// K = |pi_n”/(2 pi_n')| (a float64 side chain): the iteration stops once
+// that is below 2^-100 |x|, about double-double's own level, usually after
+// one step from the asymptotic start. It reports false when it did not get
+// there.
 func ddNewton(al, be []precision.DD, x precision.DD) (precision.DD, bool) {
 	const maxIter = 8
 	for it := 0; it < maxIter; it++ {
-		p, dp := ddEval(al, be, x)
+		p, dp, h := ddEval(al, be, x)
 		if p.Hi == 0 {
 			return x, true
 		}
-		if dp.Hi == 0 || math.IsInf(p.Hi, 0) || math.IsNaN(p.Hi) || math.IsInf(dp.Hi, 0) || math.IsNaN(dp.Hi) {
+		if dp.Hi == 0 || !finite(p.Hi) || !finite(dp.Hi) || !finite(h) {
 			return x, false
 		}
 		d := p.Quo(dp)
 		x = x.Sub(d)
-		if x.Hi == 0 || math.Abs(d.Hi) <= math.Ldexp(math.Abs(x.Hi), -96) {
+		k := math.Abs(h / dp.Hi)
+		if x.Hi == 0 || k*d.Hi*d.Hi <= math.Ldexp(math.Abs(x.Hi), -100) || math.Abs(d.Hi) <= math.Ldexp(math.Abs(x.Hi), -100) {
 			return x, true
 		}
 	}
 	return x, false
 }
 
+func finite(v float64) bool { return !math.IsInf(v, 0) && !math.IsNaN(v) }
+
 // ddEval returns pi_n(x) and pi_n'(x) by the forward recurrence in
-// double-double. The monic values shrink like (scale/2)^n; both are
-// rescaled by a power of two every 32 steps so that they stay in float64
-// range (a common factor, which the quotient p/p' does not see).
-func ddEval(al, be []precision.DD, x precision.DD) (precision.DD, precision.DD) {
+// double-double, and pi_n”(x)/2 in float64. The monic values shrink like
+// (scale/2)^n; all three are rescaled by a power of two every 32 steps so
+// that they stay in float64 range (a common factor, which the quotients
+// p/p' and p”/p' do not see).
+func ddEval(al, be []precision.DD, x precision.DD) (precision.DD, precision.DD, float64) {
 	p0, p1 := precision.DDFrom(1), x.SubFast(al[0])
 	d0, d1 := precision.DD{}, precision.DDFrom(1)
+	h0, h1 := 0.0, 0.0
 	for k := 1; k < len(al); k++ {
 		t := x.SubFast(al[k])
 		p2 := t.Mul(p1).SubFast(be[k].Mul(p0))
 		d2 := t.Mul(d1).SubFast(be[k].Mul(d0)).AddFast(p1)
-		p0, p1, d0, d1 = p1, p2, d1, d2
+		h2 := t.Hi*h1 - be[k].Hi*h0 + d1.Hi
+		p0, p1, d0, d1, h0, h1 = p1, p2, d1, d2, h1, h2
 		if k%32 == 0 {
 			m := math.Max(math.Max(math.Abs(p1.Hi), math.Abs(d1.Hi)), math.Max(math.Abs(p0.Hi), math.Abs(d0.Hi)))
-			if m == 0 || math.IsInf(m, 0) || math.IsNaN(m) {
+			m = math.Max(m, math.Max(math.Abs(h0), math.Abs(h1)))
+			if m == 0 || !finite(m) {
 				break
 			}
 			_, e := math.Frexp(m)
 			s := math.Ldexp(1, -e)
 			p0, p1, d0, d1 = p0.MulFloat(s), p1.MulFloat(s), d0.MulFloat(s), d1.MulFloat(s)
+			h0, h1 = h0*s, h1*s
 		}
 	}
-	return p1, d1
+	return p1, d1, h1
 }
 
 // parallelRange calls do for lo..hi-1 on GOMAXPROCS workers, each node on
