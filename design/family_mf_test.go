@@ -44,3 +44,22 @@ func TestMFStartAccuracy(t *testing.T) {
 		t.Logf("%s n=%d: worst 2^%d", c.fam, c.n, worst)
 	}
 }
+
+// TestMFStartScope checks that the route declines what it is not for:
+// more than 34 digits, float64 mode, small rules and infinite families
+// (those keep the eigenvalue start).
+func TestMFStartScope(t *testing.T) {
+	for _, c := range []struct {
+		fam    string
+		n, dig int
+	}{{"legendre", 300, 35}, {"legendre", 300, 0}, {"legendre", 199, 34}, {"laguerre", 300, 34}, {"hermite", 300, 34}} {
+		src := family(t, c.fam, "", "", "")
+		rec, err := src.Recurrence(c.n, 192)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if _, ok := mfStart(src, rec, c.n, c.dig); ok {
+			t.Errorf("%s n=%d digits=%d: mfStart should decline", c.fam, c.n, c.dig)
+		}
+	}
+}
