@@ -35,7 +35,10 @@ func (bw *basisWalk) degree(k int) int {
 // visits (0..len(S)-1 in x, the even ones in y = x^2), with p_j at prec bits
 // and p_j' and B at boundPrec bits (in float64 with exponents when the
 // coefficients and nodes fit, boundchain.go). With skipOdd the odd j get no
-// sum.
+// sum. The recurrence is linear, so it runs on w_i q_k from q_0 = w_i: the
+// weight enters once per node instead of once per degree, and each term is
+// rounded as often as before (the chain's relative rounding does not
+// depend on the scale of its start).
 func (bw *basisWalk) chunk(ctx context.Context, nodes, weights []*big.Float, S, B []*precision.Real, prec uint) error {
 	prog := progressOf(ctx)
 	prog.Grow(int64(len(nodes)))
@@ -70,8 +73,8 @@ func (bw *basisWalk) start(z, x *precision.Real, nx *big.Float) float64 {
 // chunkFloat is chunk with the derivative chain and the B_j in float64
 // with exponents.
 func (bw *basisWalk) chunkFloat(ctx context.Context, prog Progress, fa, fb []float64, nodes, weights []*big.Float, S, B []*precision.Real, prec uint) error {
-	r := precision.NewRealSlice(8, prec)
-	x, z, w, p0, p1, u, v, t := r[0], r[1], r[2], r[3], r[4], r[5], r[6], r[7]
+	r := precision.NewRealSlice(7, prec)
+	x, z, p0, p1, u, v, t := r[0], r[1], r[2], r[3], r[4], r[5], r[6]
 	if bw.zeroA {
 		t = z
 	}
@@ -92,20 +95,17 @@ func (bw *basisWalk) chunkFloat(ctx context.Context, prog Progress, fa, fb []flo
 			zf = f / 2
 		}
 		f = math.Abs(f)
-		w.SetBig(weights[i])
-		wm, we := w.MantExp()
-		wm = math.Abs(wm)
 		p0.SetInt64(0)
-		p1.SetInt64(1)
+		p1.SetBig(weights[i])
 		ch.reset()
 		for k := 0; k <= bw.steps; k++ {
-			// p1 = q_k(z), ch.d1 2^E = q_k'(z): accumulate, then step.
+			// p1 = w_i q_k(z), ch.d1 2^E = w_i q_k'(z): accumulate, then step.
 			j := bw.degree(k)
 			if !bw.skipOdd || j%2 == 0 {
-				S[j].MulAdd(w, p1, S[j])
+				S[j].Add(S[j], p1)
 			}
 			pf := ch.scaledP(p1)
-			bs[j].add(wm*(math.Abs(pf)+f*math.Abs(ch.d1)), ch.E+we)
+			bs[j].add(math.Abs(pf)+f*math.Abs(ch.d1), ch.E)
 			if k == bw.steps {
 				break
 			}
@@ -128,13 +128,13 @@ func (bw *basisWalk) chunkFloat(ctx context.Context, prog Progress, fa, fb []flo
 // boundPrec bits, for coefficients or nodes beyond float64's comfortable
 // range.
 func (bw *basisWalk) chunkReal(ctx context.Context, prog Progress, nodes, weights []*big.Float, S, B []*precision.Real, prec uint) error {
-	r := precision.NewRealSlice(8, prec)
-	x, z, w, p0, p1, u, v, t := r[0], r[1], r[2], r[3], r[4], r[5], r[6], r[7]
+	r := precision.NewRealSlice(7, prec)
+	x, z, p0, p1, u, v, t := r[0], r[1], r[2], r[3], r[4], r[5], r[6]
 	if bw.zeroA {
 		t = z
 	}
-	lo := precision.NewRealSlice(9, boundPrec)
-	aw, lf, d0, d1, lp, lu, lv, lt, lz := lo[0], lo[1], lo[2], lo[3], lo[4], lo[5], lo[6], lo[7], lo[8]
+	lo := precision.NewRealSlice(8, boundPrec)
+	lf, d0, d1, lp, lu, lv, lt, lz := lo[0], lo[1], lo[2], lo[3], lo[4], lo[5], lo[6], lo[7]
 	la := precision.NewRealSlice(bw.steps, boundPrec)
 	lb := precision.NewRealSlice(bw.steps, boundPrec)
 	for k := 0; k < bw.steps; k++ {
@@ -151,8 +151,6 @@ func (bw *basisWalk) chunkReal(ctx context.Context, prog Progress, nodes, weight
 			prog.Advance(1)
 		}
 		bw.start(z, x, nodes[i])
-		w.SetBig(weights[i])
-		aw.Abs(lu.Set(w))
 		lz.Set(z)
 		if bw.squares {
 			lf.MulPow2(lz, 1)
@@ -160,21 +158,21 @@ func (bw *basisWalk) chunkReal(ctx context.Context, prog Progress, nodes, weight
 			lf.Abs(lz)
 		}
 		p0.SetInt64(0)
-		p1.SetInt64(1)
+		p1.SetBig(weights[i])
 		d0.SetInt64(0)
 		d1.SetInt64(0)
 		for k := 0; k <= bw.steps; k++ {
-			// p1 = q_k(z), d1 = q_k'(z): accumulate, then step to k+1.
+			// p1 = w_i q_k(z), d1 = w_i q_k'(z): accumulate, then step to k+1.
 			j := bw.degree(k)
 			if !bw.skipOdd || j%2 == 0 {
-				S[j].MulAdd(w, p1, S[j])
+				S[j].Add(S[j], p1)
 			}
 			lp.Set(p1)
 			lu.Mul(lf, d1)
 			lu.Abs(lu)
 			lv.Abs(lp)
 			lu.Add(lu, lv)
-			B[j].MulAdd(aw, lu, B[j])
+			B[j].Add(B[j], lu)
 			if k == bw.steps {
 				break
 			}
