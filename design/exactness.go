@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 	"math/big"
+	"math/bits"
 	"runtime"
 	"sync"
 
@@ -61,7 +62,29 @@ func CheckExactness(ctx context.Context, rec *Recurrence, nodes, weights []*big.
 		panic(fmt.Sprintf("design: CheckExactness to degree %d needs %d recurrence pairs, have %d", maxDeg, maxDeg, rec.Len()))
 	}
 	integrals := []*big.Float{rec.Beta[0]}
-	return checkInBasis(ctx, rec.Alpha[:maxDeg], rec.Beta[:maxDeg], integrals, nil, nodes, weights, tol, maxDeg, prec)
+	return checkInBasis(ctx, rec.Alpha[:maxDeg], rec.Beta[:maxDeg], integrals, nil, nodes, weights, tol, maxDeg, sumPrec(tol, maxDeg+1, prec))
+}
+
+// sumPrec is the precision CheckExactness forms its sums at: prec, or less
+// when tol leaves room. The test compares |S_j| with tol B_j, so what the
+// sums must resolve is a small fraction of tol B_j. Rounding the nodes and
+// weights to P bits moves S_j by less than 2^(1-P) B_j (B_j is the first-order
+// change of S_j under relative perturbations of them), and the forward
+// recurrence's rounding adds at most about m^2 2^-P B_j over m degrees (a
+// conservative allowance: for nodes in the support the errors grow about
+// linearly with the degree). P = log2(1/tol) + 2 log2(m) + 32 keeps both
+// below 2^-30 tol B_j, so the verdict and the printed ratios do not depend
+// on it.
+func sumPrec(tol *big.Float, m int, prec uint) uint {
+	if tol.Sign() <= 0 {
+		return prec
+	}
+	e := tol.MantExp(nil) // tol < 2^e
+	if e >= 0 {
+		return prec
+	}
+	need := uint(-e) + 2*uint(bits.Len(uint(m))) + 32
+	return min(prec, (need+63)/64*64)
 }
 
 // checkInBasis is the test of CheckExactness in the basis of monic
