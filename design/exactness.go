@@ -3,8 +3,8 @@ package design
 import (
 	"context"
 	"fmt"
-	"math"
 	"math/big"
+	"math/bits"
 	"runtime"
 	"sync"
 
@@ -62,7 +62,29 @@ func CheckExactness(ctx context.Context, rec *Recurrence, nodes, weights []*big.
 		panic(fmt.Sprintf("design: CheckExactness to degree %d needs %d recurrence pairs, have %d", maxDeg, maxDeg, rec.Len()))
 	}
 	integrals := []*big.Float{rec.Beta[0]}
-	return checkInBasis(ctx, rec.Alpha[:maxDeg], rec.Beta[:maxDeg], integrals, nil, nodes, weights, tol, maxDeg, prec)
+	return checkInBasis(ctx, rec.Alpha[:maxDeg], rec.Beta[:maxDeg], integrals, nil, nodes, weights, tol, maxDeg, sumPrec(tol, maxDeg+1, prec))
+}
+
+// sumPrec is the precision CheckExactness forms its sums at: prec, or less
+// when tol leaves room. The test compares |S_j| with tol B_j, so what the
+// sums must resolve is a small fraction of tol B_j. Rounding the nodes and
+// weights to P bits moves S_j by less than 2^(1-P) B_j (B_j is the first-order
+// change of S_j under relative perturbations of them), and the forward
+// recurrence's rounding adds at most about m^2 2^-P B_j over m degrees (a
+// conservative allowance: for nodes in the support the errors grow about
+// linearly with the degree). P = log2(1/tol) + 2 log2(m) + 32 keeps both
+// below 2^-30 tol B_j, so the verdict and the printed ratios do not depend
+// on it.
+func sumPrec(tol *big.Float, m int, prec uint) uint {
+	if tol.Sign() <= 0 {
+		return prec
+	}
+	e := tol.MantExp(nil) // tol < 2^e
+	if e >= 0 {
+		return prec
+	}
+	need := uint(-e) + 2*uint(bits.Len(uint(m))) + 32
+	return min(prec, (need+63)/64*64)
 }
 
 // checkInBasis is the test of CheckExactness in the basis of monic
@@ -85,6 +107,10 @@ func checkInBasis(ctx context.Context, alpha, beta, integrals, slack []*big.Floa
 		b[k].SetBig(beta[k])
 	}
 	nodes, weights, paired := pairUp(alpha[:maxDeg], nodes, weights)
+	walk := basisWalk{a: a, b: b, steps: maxDeg, skipOdd: paired, zeroA: paired}
+	if paired && maxDeg >= 2 {
+		walk = squaresWalk(b, maxDeg, prec)
+	}
 	n := len(nodes)
 	workers := runtime.GOMAXPROCS(0)
 	if n < 4*workers {
@@ -101,11 +127,7 @@ func checkInBasis(ctx context.Context, alpha, beta, integrals, slack []*big.Floa
 		wg.Add(1)
 		go func(wk, lo, hi int) {
 			defer wg.Done()
-			if paired && maxDeg >= 2 {
-				errs[wk] = squaresChunk(ctx, b, nodes[lo:hi], weights[lo:hi], sums[wk], bounds[wk], prec)
-				return
-			}
-			errs[wk] = exactnessChunk(ctx, a, b, nodes[lo:hi], weights[lo:hi], sums[wk], bounds[wk], prec, paired)
+			errs[wk] = walk.chunk(ctx, nodes[lo:hi], weights[lo:hi], sums[wk], bounds[wk], prec)
 		}(wk, lo, hi)
 	}
 	wg.Wait()
@@ -201,142 +223,4 @@ func pairUp(alpha, nodes, weights []*big.Float) ([]*big.Float, []*big.Float, boo
 		hw = append(hw, w)
 	}
 	return hn, hw, true
-}
-
-// exactnessChunk adds, for its nodes, w_i p_j(x_i) to S[j] and
-// |w_i| (|p_j(x_i)| + |x_i p_j'(x_i)|) to B[j], j = 0..len(S)-1, with p_j
-// the monic orthogonal polynomials run by the forward recurrence: p_j at
-// prec bits, p_j' and B at boundPrec bits. With paired (see pairUp) the odd
-// j get no sum: their pairs cancel exactly.
-func exactnessChunk(ctx context.Context, a, b []*precision.Real, nodes, weights []*big.Float, S, B []*precision.Real, prec uint, paired bool) error {
-	prog := progressOf(ctx)
-	prog.Grow(int64(len(nodes)))
-	r := precision.NewRealSlice(6, prec)
-	x, w, p0, p1, u, v := r[0], r[1], r[2], r[3], r[4], r[5]
-	m := len(S)
-	lo := precision.NewRealSlice(9, boundPrec)
-	ax, aw, d0, d1, lp, lu, lv, lt, lx := lo[0], lo[1], lo[2], lo[3], lo[4], lo[5], lo[6], lo[7], lo[8]
-	la := precision.NewRealSlice(m, boundPrec)
-	lb := precision.NewRealSlice(m, boundPrec)
-	for j := 0; j+1 < m; j++ {
-		la[j].Set(a[j])
-		lb[j].Set(b[j])
-	}
-	t := x
-	if !paired {
-		t = precision.NewReal(prec)
-	}
-	fa, oka := floatCoeffs(a[:max(m-1, 0)])
-	fb, okb := floatCoeffs(b[:max(m-1, 0)])
-	if oka && okb && nodesFit(nodes) {
-		return exactnessChunkFloat(ctx, prog, a, b, fa, fb, nodes, weights, S, B, prec, paired)
-	}
-	for i := range nodes {
-		if i%16 == 0 {
-			if err := ctx.Err(); err != nil {
-				return err
-			}
-		}
-		if i > 0 {
-			prog.Advance(1)
-		}
-		x.SetBig(nodes[i])
-		w.SetBig(weights[i])
-		aw.Abs(lu.Set(w))
-		ax.Abs(lu.Set(x))
-		lx.Set(x)
-		p0.SetInt64(0)
-		p1.SetInt64(1)
-		d0.SetInt64(0)
-		d1.SetInt64(0)
-		for j := 0; j < m; j++ {
-			// p1 = p_j(x), d1 = p_j'(x): accumulate, then step to j+1.
-			if !paired || j%2 == 0 {
-				S[j].MulAdd(w, p1, S[j])
-			}
-			lp.Set(p1)
-			lu.Mul(ax, d1)
-			lu.Abs(lu)
-			lv.Abs(lp)
-			lu.Add(lu, lv)
-			B[j].MulAdd(aw, lu, B[j])
-			if j+1 == m {
-				break
-			}
-			if !paired {
-				t.Sub(x, a[j])
-			}
-			u.Mul(b[j], p0)
-			v.MulSub(t, p1, u)
-			lt.Sub(lx, la[j])
-			lu.Mul(lb[j], d0)
-			lv.MulSub(lt, d1, lu)
-			lv.Add(lv, lp)
-			p0, p1, v = p1, v, p0
-			d0, d1, lv = d1, lv, d0
-		}
-	}
-	if len(nodes) > 0 {
-		prog.Advance(1)
-	}
-	return nil
-}
-
-// exactnessChunkFloat is exactnessChunk with the derivative chain and the
-// B_j in float64 with exponents (boundchain.go), for coefficients and nodes
-// that fit a float64.
-func exactnessChunkFloat(ctx context.Context, prog Progress, a, b []*precision.Real, fa, fb []float64, nodes, weights []*big.Float, S, B []*precision.Real, prec uint, paired bool) error {
-	r := precision.NewRealSlice(7, prec)
-	x, w, p0, p1, u, v, t := r[0], r[1], r[2], r[3], r[4], r[5], r[6]
-	if paired {
-		t = x
-	}
-	m := len(S)
-	bs := make([]scaled, m)
-	var ch derivChain
-	for i := range nodes {
-		if i%16 == 0 {
-			if err := ctx.Err(); err != nil {
-				return err
-			}
-		}
-		if i > 0 {
-			prog.Advance(1)
-		}
-		x.SetBig(nodes[i])
-		w.SetBig(weights[i])
-		wm, we := w.MantExp()
-		wm = math.Abs(wm)
-		xm, xe := x.MantExp()
-		xf := xm * pow2(xe) // nodesFit: |x| < 2^250
-		ax := math.Abs(xf)
-		p0.SetInt64(0)
-		p1.SetInt64(1)
-		ch.reset()
-		for j := 0; j < m; j++ {
-			// p1 = p_j(x), ch.d1 2^E = p_j'(x): accumulate, then step.
-			if !paired || j%2 == 0 {
-				S[j].MulAdd(w, p1, S[j])
-			}
-			pf := ch.scaledP(p1)
-			bs[j].add(wm*(math.Abs(pf)+ax*math.Abs(ch.d1)), ch.E+we)
-			if j+1 == m {
-				break
-			}
-			if !paired {
-				t.Sub(x, a[j])
-			}
-			u.Mul(b[j], p0)
-			v.MulSub(t, p1, u)
-			ch.step(xf-fa[j], fb[j], pf)
-			p0, p1, v = p1, v, p0
-		}
-	}
-	if len(nodes) > 0 {
-		prog.Advance(1)
-	}
-	for j := range bs {
-		B[j].Set(bs[j].real())
-	}
-	return nil
 }

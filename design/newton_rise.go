@@ -190,7 +190,7 @@ func riseRound(b int, top uint) uint {
 func (rw *riseWorker) newton(x, wt *precision.Real, startBits int) bool {
 	top := rw.levels.top.prec
 	noise := rw.noise()
-	q := riseRound(2*startBits+noise, top)
+	q, cubic := rw.plan(startBits, 0)
 	var prevDelta int64
 	const maxIter = 60
 	for it := 0; it < maxIter; it++ {
@@ -209,6 +209,21 @@ func (rw *riseWorker) newton(x, wt *precision.Real, startBits int) bool {
 		}
 		d := rw.delta
 		d.Quo(rw.f.Set(e.p), rw.g.Set(e.dp)) // at the target precision: x carries all its bits
+		// log2 of K = |pi_n'' / (2 pi_n')|, to within a couple of units.
+		eK := int64(-1 << 40)
+		if !e.h.IsZero() {
+			eK = e.h.Exponent() - e.dp.Exponent()
+		}
+		ed := d.Exponent()
+		quadratic := eK+ed <= -20 // the step is far below the scale on which pi_n' changes
+		cubicStep := cubic && quadratic && q < top && !e.h.IsZero()
+		if cubicStep {
+			// Chebyshev's step x - d - (pi_n''/(2 pi_n')) d^2, third order.
+			c := rw.f.Quo(rw.f.Set(e.h), rw.g.Set(e.dp))
+			c.Mul(c, d)
+			c.Mul(c, d)
+			x.Sub(x, c)
+		}
 		x.Sub(x, d)
 		if x.IsZero() {
 			if q < top {
@@ -217,14 +232,14 @@ func (rw *riseWorker) newton(x, wt *precision.Real, startBits int) bool {
 			}
 			return rw.weight(wt, e, d)
 		}
-		// log2 of K = |pi_n'' / (2 pi_n')|, to within a couple of units.
-		eK := int64(-1 << 40)
-		if !e.h.IsZero() {
-			eK = e.h.Exponent() - e.dp.Exponent()
+		ex := x.Exponent()
+		trunc := eK + 2*ed - ex // log2 of the new iterate's relative error, about
+		if cubicStep {
+			// After Chebyshev's step the error is about C delta^3, C of the
+			// order of K^2 and of the third derivative over pi_n' (not at
+			// hand: a factor 4 of margin).
+			trunc = 2*eK + 2 + 3*ed - ex
 		}
-		ed, ex := d.Exponent(), x.Exponent()
-		quadratic := eK+ed <= -20 // the step is far below the scale on which pi_n' changes
-		trunc := eK + 2*ed - ex   // log2 of the new iterate's relative error, about
 		if q == top {
 			// Weight remainder: (delta * scale)^2 with scale the larger of
 			// |pi_{n-1}'/pi_{n-1}| and |pi_n''/pi_n'|.
@@ -249,11 +264,35 @@ func (rw *riseWorker) newton(x, wt *precision.Real, startBits int) bool {
 		}
 		if quadratic {
 			acc := int(min(-trunc-2, int64(q)-int64(noise)))
-			q = max(q, riseRound(2*acc+noise, top))
+			nq, nc := rw.plan(acc, eK)
+			q, cubic = max(q, nq), nc && nq >= q
 		}
 		prevDelta = ed
 	}
 	return false
+}
+
+// plan returns the level of the next step for a node with about acc
+// correct bits (K about 2^eK), and whether that step is Chebyshev's. The
+// step at the target precision is Newton's, with the stopping tests above;
+// it ends the iteration by itself when the node comes in with about half
+// the target's bits and the weight remainder's scale on top. Below that, a
+// step of third order at a level that holds what it makes (3 acc bits,
+// capped at what the top step needs) takes the node there in fewer steps
+// than Newton's doubling, which would often land just short and cost a
+// second evaluation at the target precision. When even that level would be
+// the target, the levels double as Newton's steps do.
+func (rw *riseWorker) plan(acc int, eK int64) (uint, bool) {
+	top := rw.levels.top.prec
+	noise := rw.noise()
+	need := (int(top)-noise)/2 + int(max(min(eK, 1<<20), 0)) + 8
+	if acc >= need {
+		return top, false
+	}
+	if q := riseRound(min(3*acc, need+16)+noise, top); q < top {
+		return q, true
+	}
+	return riseRound(2*acc+noise, top), false
 }
 
 // weight sets wt to norm / (pi_{n-1}(x) pi_n'(x)) at the new node x - d from

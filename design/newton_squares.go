@@ -34,25 +34,7 @@ func refineSquares(ctx context.Context, a, b []*precision.Real, norm *precision.
 	n := len(xs)
 	m := n / 2
 	odd := n%2 == 1
-	ya := precision.NewRealSlice(m, prec)
-	yb := precision.NewRealSlice(m, prec)
-	for k := 0; k < m; k++ {
-		switch {
-		case odd:
-			ya[k].Add(b[2*k+1], b[2*k+2])
-			if k == 0 {
-				yb[0].Mul(b[0], b[1])
-			} else {
-				yb[k].Mul(b[2*k], b[2*k+1])
-			}
-		case k == 0:
-			ya[0].Set(b[1])
-			yb[0].Set(b[0])
-		default:
-			ya[k].Add(b[2*k], b[2*k+1])
-			yb[k].Mul(b[2*k-1], b[2*k])
-		}
-	}
+	ya, yb := squaredRecurrence(b, m, odd, prec)
 	ynorm := precision.NewReal(prec).SetInt64(1)
 	for k := 0; k < m; k++ {
 		ynorm.Mul(ynorm, yb[k])

@@ -5,6 +5,7 @@ import (
 	"math/big"
 	"strconv"
 	"strings"
+	"sync"
 )
 
 // FormatSig returns x correctly rounded (to nearest, ties to even, on the
@@ -71,24 +72,43 @@ func decimalDigits(x *big.Float, d int) (*big.Int, int) {
 	mf, _ := mant.Float64()
 	// First guess of floor(log10|x|), off by at most one.
 	e := int(math.Floor(float64(be)*math.Log10(2) + math.Log10(math.Abs(mf))))
-	lo, hi := pow10Int(d-1), pow10Int(d)
-	num, den, r := new(big.Int), new(big.Int), new(big.Int)
+	lo, hi := cachedPow(10, d-1), cachedPow(10, d)
+	num, q, r := new(big.Int), new(big.Int), new(big.Int)
 	for {
 		// |x| / 10^k = m 2^(e2-k) / 5^k, k = e-d+1.
 		k := e - d + 1
-		num.Set(m)
-		den.SetInt64(1)
+		s := e2 - k
+		var c int // the sign of 2r - den, r the remainder of the division
 		if k >= 0 {
-			den.Exp(big.NewInt(5), big.NewInt(int64(k)), nil)
+			num.Set(m)
+			den := cachedPow(5, k)
+			if s >= 0 {
+				num.Lsh(num, uint(s))
+			} else {
+				den = new(big.Int).Lsh(den, uint(-s))
+			}
+			q.QuoRem(num, den, r)
+			c = r.Lsh(r, 1).Cmp(den)
 		} else {
-			num.Mul(num, new(big.Int).Exp(big.NewInt(5), big.NewInt(int64(-k)), nil))
+			// The divisor is a power of two: shift, and read the
+			// remainder's comparison with half of it off the bits.
+			num.Mul(m, cachedPow(5, -k))
+			if s >= 0 {
+				q.Lsh(num, uint(s))
+				c = -1
+			} else {
+				t := uint(-s)
+				q.Rsh(num, t)
+				switch {
+				case num.Bit(int(t-1)) == 0:
+					c = -1
+				case num.TrailingZeroBits() == t-1:
+					c = 0
+				default:
+					c = 1
+				}
+			}
 		}
-		if s := e2 - k; s >= 0 {
-			num.Lsh(num, uint(s))
-		} else {
-			den.Lsh(den, uint(-s))
-		}
-		q, _ := new(big.Int).QuoRem(num, den, r)
 		switch {
 		case q.Cmp(hi) >= 0:
 			e++
@@ -97,8 +117,7 @@ func decimalDigits(x *big.Float, d int) (*big.Int, int) {
 			e--
 			continue
 		}
-		switch c := r.Lsh(r, 1).Cmp(den); {
-		case c > 0, c == 0 && q.Bit(0) == 1:
+		if c > 0 || c == 0 && q.Bit(0) == 1 {
 			q.Add(q, big.NewInt(1))
 		}
 		if q.Cmp(hi) == 0 {
@@ -107,6 +126,35 @@ func decimalDigits(x *big.Float, d int) (*big.Int, int) {
 		}
 		return q, e
 	}
+}
+
+// Powers of 10 and 5 for decimalDigits, computed once: a rule prints
+// thousands of values at one digit count and within a few exponents. The
+// cache keeps at most powCacheMax entries (beyond that a power is computed
+// each time); the values in it are never modified.
+const powCacheMax = 512
+
+var (
+	powMu    sync.RWMutex
+	powCache = map[[2]int]*big.Int{}
+)
+
+// cachedPow returns base^e for e >= 0; the result must not be modified.
+func cachedPow(base, e int) *big.Int {
+	key := [2]int{base, e}
+	powMu.RLock()
+	p, ok := powCache[key]
+	powMu.RUnlock()
+	if ok {
+		return p
+	}
+	p = new(big.Int).Exp(big.NewInt(int64(base)), big.NewInt(int64(e)), nil)
+	powMu.Lock()
+	if len(powCache) < powCacheMax {
+		powCache[key] = p
+	}
+	powMu.Unlock()
+	return p
 }
 
 // FormatFloat64 returns the shortest decimal that reads back as f
