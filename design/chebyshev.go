@@ -141,14 +141,24 @@ const maxChebyshevPrec = 1 << 15
 // successive precisions agree that beta_k <= 0 at the same k, or at the
 // last precision tried; loss beyond maxChebyshevPrec bits is an error.
 func chebyshevConverged(input func(w uint) (nu, a, b []*big.Float), n int, prec uint) (*Recurrence, error) {
+	return chebyshevUntil(input, n, prec+64, false, prec+8, prec)
+}
+
+// chebyshevUntil runs ModifiedChebyshev on input(w) at w = w0, then at
+// w0 + 64 if step, else 2 w0, then at doubling precisions, until two
+// successive runs agree on every pair to agree bits, and returns the more
+// precise one rounded to prec bits (see chebyshevConverged).
+func chebyshevUntil(input func(w uint) (nu, a, b []*big.Float), n int, w uint, step bool, agree, prec uint) (*Recurrence, error) {
 	run := func(w uint) (*Recurrence, error) {
 		nu, a, b := input(w)
 		return ModifiedChebyshev(nu, a, b, n, w)
 	}
-	w := prec + 64
 	prev, prevErr := run(w)
 	for {
 		w2 := 2 * w
+		if step {
+			w2, step = w+64, false
+		}
 		cur, err := run(w2)
 		if prevErr != nil && err != nil {
 			var e1, e2 *MomentSequenceError
@@ -156,7 +166,7 @@ func chebyshevConverged(input func(w uint) (nu, a, b []*big.Float), n int, prec 
 				return nil, err
 			}
 		}
-		if prevErr == nil && err == nil && pairsAgree(prev, cur, prec+8) {
+		if prevErr == nil && err == nil && pairsAgree(prev, cur, agree) {
 			return roundRecurrence(cur, prec), nil
 		}
 		if w2 >= maxChebyshevPrec {
@@ -226,4 +236,17 @@ func roundRecurrence(r *Recurrence, prec uint) *Recurrence {
 		out.Beta[k] = new(big.Float).SetPrec(prec).Set(r.Beta[k])
 	}
 	return out
+}
+
+// chebyshevPair runs ModifiedChebyshev on the inputs that input(w) returns
+// at w bits, first at w1 = bits + 64 and w1 + 64 bits, then at doubling
+// precisions, until two successive runs agree on every pair to bits + 8
+// bits (pairsAgree), and returns the more precise one rounded to prec bits.
+// It is chebyshevConverged for a caller that needs the pairs to bits < prec
+// bits only (ExprSource, whose pairs are confirmed to prec - routeSlack
+// bits): a well-conditioned map is then settled by two runs 64 bits apart
+// instead of runs at prec + 64 and 2 prec + 128 bits. The inputs are taken
+// as exact values, as in chebyshevConverged.
+func chebyshevPair(input func(w uint) (nu, a, b []*big.Float), n int, bits, prec uint) (*Recurrence, error) {
+	return chebyshevUntil(input, n, (bits+64+63)/64*64, true, bits+8, prec)
 }

@@ -96,6 +96,15 @@ func (s *ExprSource) compute(n int, prec uint) (*Recurrence, error) {
 	// |q_k w|, and when the basis suits the weight poorly (a Laguerre basis
 	// for a Gaussian decay) the moment map amplifies them until the route
 	// fails or disagrees.
+	// A weight whose modified moments have a closed form needs no
+	// quadrature: the exact moments and the modified Chebyshev algorithm,
+	// confirmed at two precisions (closedRoute). Should the map be too
+	// ill conditioned for that, the numerical routes below decide.
+	if cf, ok := s.closedForm(); ok {
+		if rec, err := s.closedRoute(cf, n, prec); err == nil {
+			return rec, nil
+		}
+	}
 	digits := digitsFor(prec)
 	bits := prec - routeSlack
 	var prevB *Recurrence
