@@ -95,14 +95,29 @@ func ModifiedChebyshev(nu, a, b []*big.Float, n int, prec uint) (*Recurrence, er
 	al[0].Quo(s1[1], s1[0])
 	al[0].Add(al[0], ra[0])
 	be[0].Set(s1[0])
+	constA := true
+	for l := 1; l < L-1; l++ {
+		constA = constA && ra[l].Cmp(ra[0]) == 0
+	}
 	for k := 1; k < n; k++ {
-		for l := k; l <= L-k-1; l++ {
-			t.Sub(al[k-1], ra[l])
-			u.Mul(t, s1[l])
-			s2[l].Sub(s1[l+1], u)
-			u.Mul(be[k-1], s0[l])
-			s2[l].Sub(s2[l], u)
-			s2[l].MulAdd(rb[l], s1[l-1], s2[l])
+		if constA {
+			// a_l = a for every l (an interval's Legendre or Chebyshev
+			// basis): t = alpha_{k-1} - a is the same for the whole row.
+			t.Sub(al[k-1], ra[0])
+			for l := k; l <= L-k-1; l++ {
+				u.MulSub(t, s1[l], s1[l+1])     // t sigma_{k-1,l} - sigma_{k-1,l+1}
+				u.MulAdd(be[k-1], s0[l], u)     // + beta_{k-1} sigma_{k-2,l}
+				s2[l].MulSub(rb[l], s1[l-1], u) // b_l sigma_{k-1,l-1} - (...)
+			}
+		} else {
+			for l := k; l <= L-k-1; l++ {
+				t.Sub(al[k-1], ra[l])
+				u.Mul(t, s1[l])
+				s2[l].Sub(s1[l+1], u)
+				u.Mul(be[k-1], s0[l])
+				s2[l].Sub(s2[l], u)
+				s2[l].MulAdd(rb[l], s1[l-1], s2[l])
+			}
 		}
 		if s2[k].Sign() <= 0 {
 			be[k].Quo(s2[k], s1[k-1])
