@@ -15,7 +15,7 @@ func TestClosedRouteAgreesWithQuadrature(t *testing.T) {
 	for _, c := range []struct {
 		expr string
 		n    int
-	}{{"-log(x)", 60}, {"log(1/x)/3", 25}} {
+	}{{"-log(x)", 60}, {"log(1/x)/3", 25}, {"-log(1-x)", 20}, {"x^0.5", 30}, {"2*(1-x)^-0.75", 20}, {"x^3", 10}} {
 		src := exprSource(t, c.expr, "0,1")
 		cf, ok := src.closedForm()
 		if !ok {
@@ -71,5 +71,28 @@ func TestClosedRouteTaken(t *testing.T) {
 	}
 	if _, ok := exprSource(t, "-log(x)", "0,1/2").closedForm(); ok {
 		t.Error("-log(x) on [0,1/2] took the closed form of [0,1]")
+	}
+}
+
+// TestClosedPowerMatchesJacobi builds Gauss rules for powers of x and 1 - x
+// on [0, 1] by the closed-form route and compares their nodes with those of
+// the Jacobi family mapped onto [0, 1] (closed-form recurrence, the
+// reference): (1-t)^a (1+t)^b with t = 2x - 1 is 2^(a+b) (1-x)^a x^b, so
+// the nodes agree digit for digit.
+func TestClosedPowerMatchesJacobi(t *testing.T) {
+	for _, c := range []struct{ expr, alpha, beta string }{
+		{"x^0.5", "0", "0.5"},
+		{"(1-x)^-0.25", "-0.25", "0"},
+	} {
+		want := build(t, family(t, "jacobi", c.alpha, c.beta, "0,1"), 9, 30)
+		got, err := Gauss(context.Background(), exprSource(t, c.expr, "0,1"), Request{Points: 9, Digits: 30})
+		if err != nil {
+			t.Fatalf("%s: %v", c.expr, err)
+		}
+		for i := range want.Nodes {
+			if got.Nodes[i] != want.Nodes[i] {
+				t.Errorf("%s node %d: %s, family %s", c.expr, i, got.Nodes[i], want.Nodes[i])
+			}
+		}
 	}
 }
