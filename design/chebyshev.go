@@ -162,19 +162,34 @@ func chebyshevConverged(input func(w uint) (nu, a, b []*big.Float), n int, prec 
 // chebyshevUntil runs ModifiedChebyshev on input(w) at w = w0, then at
 // w0 + 64 if step, else 2 w0, then at doubling precisions, until two
 // successive runs agree on every pair to agree bits, and returns the more
-// precise one rounded to prec bits (see chebyshevConverged).
+// precise one rounded to prec bits (see chebyshevConverged). With step the
+// first two runs go side by side.
 func chebyshevUntil(input func(w uint) (nu, a, b []*big.Float), n int, w uint, step bool, agree, prec uint) (*Recurrence, error) {
 	run := func(w uint) (*Recurrence, error) {
 		nu, a, b := input(w)
 		return ModifiedChebyshev(nu, a, b, n, w)
 	}
-	prev, prevErr := run(w)
+	var prev, cur *Recurrence
+	var prevErr, err error
+	if step {
+		// The first two runs are independent: side by side.
+		done := make(chan struct{})
+		go func() {
+			defer close(done)
+			prev, prevErr = run(w)
+		}()
+		cur, err = run(w + 64)
+		<-done
+	} else {
+		prev, prevErr = run(w)
+	}
 	for {
 		w2 := 2 * w
 		if step {
 			w2, step = w+64, false
+		} else {
+			cur, err = run(w2)
 		}
-		cur, err := run(w2)
 		if prevErr != nil && err != nil {
 			var e1, e2 *MomentSequenceError
 			if asSeq(prevErr, &e1) && asSeq(err, &e2) && e1.K == e2.K {
