@@ -95,14 +95,29 @@ func ModifiedChebyshev(nu, a, b []*big.Float, n int, prec uint) (*Recurrence, er
 	al[0].Quo(s1[1], s1[0])
 	al[0].Add(al[0], ra[0])
 	be[0].Set(s1[0])
+	constA := true
+	for l := 1; l < L-1; l++ {
+		constA = constA && ra[l].Cmp(ra[0]) == 0
+	}
 	for k := 1; k < n; k++ {
-		for l := k; l <= L-k-1; l++ {
-			t.Sub(al[k-1], ra[l])
-			u.Mul(t, s1[l])
-			s2[l].Sub(s1[l+1], u)
-			u.Mul(be[k-1], s0[l])
-			s2[l].Sub(s2[l], u)
-			s2[l].MulAdd(rb[l], s1[l-1], s2[l])
+		if constA {
+			// a_l = a for every l (an interval's Legendre or Chebyshev
+			// basis): t = alpha_{k-1} - a is the same for the whole row.
+			t.Sub(al[k-1], ra[0])
+			for l := k; l <= L-k-1; l++ {
+				u.MulSub(t, s1[l], s1[l+1])     // t sigma_{k-1,l} - sigma_{k-1,l+1}
+				u.MulAdd(be[k-1], s0[l], u)     // + beta_{k-1} sigma_{k-2,l}
+				s2[l].MulSub(rb[l], s1[l-1], u) // b_l sigma_{k-1,l-1} - (...)
+			}
+		} else {
+			for l := k; l <= L-k-1; l++ {
+				t.Sub(al[k-1], ra[l])
+				u.Mul(t, s1[l])
+				s2[l].Sub(s1[l+1], u)
+				u.Mul(be[k-1], s0[l])
+				s2[l].Sub(s2[l], u)
+				s2[l].MulAdd(rb[l], s1[l-1], s2[l])
+			}
 		}
 		if s2[k].Sign() <= 0 {
 			be[k].Quo(s2[k], s1[k-1])
@@ -141,22 +156,47 @@ const maxChebyshevPrec = 1 << 15
 // successive precisions agree that beta_k <= 0 at the same k, or at the
 // last precision tried; loss beyond maxChebyshevPrec bits is an error.
 func chebyshevConverged(input func(w uint) (nu, a, b []*big.Float), n int, prec uint) (*Recurrence, error) {
+	return chebyshevUntil(input, n, prec+64, false, prec+8, prec)
+}
+
+// chebyshevUntil runs ModifiedChebyshev on input(w) at w = w0, then at
+// w0 + 64 if step, else 2 w0, then at doubling precisions, until two
+// successive runs agree on every pair to agree bits, and returns the more
+// precise one rounded to prec bits (see chebyshevConverged). With step the
+// first two runs go side by side.
+func chebyshevUntil(input func(w uint) (nu, a, b []*big.Float), n int, w uint, step bool, agree, prec uint) (*Recurrence, error) {
 	run := func(w uint) (*Recurrence, error) {
 		nu, a, b := input(w)
 		return ModifiedChebyshev(nu, a, b, n, w)
 	}
-	w := prec + 64
-	prev, prevErr := run(w)
+	var prev, cur *Recurrence
+	var prevErr, err error
+	if step {
+		// The first two runs are independent: side by side.
+		done := make(chan struct{})
+		go func() {
+			defer close(done)
+			prev, prevErr = run(w)
+		}()
+		cur, err = run(w + 64)
+		<-done
+	} else {
+		prev, prevErr = run(w)
+	}
 	for {
 		w2 := 2 * w
-		cur, err := run(w2)
+		if step {
+			w2, step = w+64, false
+		} else {
+			cur, err = run(w2)
+		}
 		if prevErr != nil && err != nil {
 			var e1, e2 *MomentSequenceError
 			if asSeq(prevErr, &e1) && asSeq(err, &e2) && e1.K == e2.K {
 				return nil, err
 			}
 		}
-		if prevErr == nil && err == nil && pairsAgree(prev, cur, prec+8) {
+		if prevErr == nil && err == nil && pairsAgree(prev, cur, agree) {
 			return roundRecurrence(cur, prec), nil
 		}
 		if w2 >= maxChebyshevPrec {
@@ -226,4 +266,17 @@ func roundRecurrence(r *Recurrence, prec uint) *Recurrence {
 		out.Beta[k] = new(big.Float).SetPrec(prec).Set(r.Beta[k])
 	}
 	return out
+}
+
+// chebyshevPair runs ModifiedChebyshev on the inputs that input(w) returns
+// at w bits, first at w1 = bits + 64 and w1 + 64 bits, then at doubling
+// precisions, until two successive runs agree on every pair to bits + 8
+// bits (pairsAgree), and returns the more precise one rounded to prec bits.
+// It is chebyshevConverged for a caller that needs the pairs to bits < prec
+// bits only (ExprSource, whose pairs are confirmed to prec - routeSlack
+// bits): a well-conditioned map is then settled by two runs 64 bits apart
+// instead of runs at prec + 64 and 2 prec + 128 bits. The inputs are taken
+// as exact values, as in chebyshevConverged.
+func chebyshevPair(input func(w uint) (nu, a, b []*big.Float), n int, bits, prec uint) (*Recurrence, error) {
+	return chebyshevUntil(input, n, (bits+64+63)/64*64, true, bits+8, prec)
 }

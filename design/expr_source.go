@@ -96,6 +96,15 @@ func (s *ExprSource) compute(n int, prec uint) (*Recurrence, error) {
 	// |q_k w|, and when the basis suits the weight poorly (a Laguerre basis
 	// for a Gaussian decay) the moment map amplifies them until the route
 	// fails or disagrees.
+	// A weight whose modified moments have a closed form needs no
+	// quadrature: the exact moments and the modified Chebyshev algorithm,
+	// confirmed at two precisions (closedRoute). Should the map be too
+	// ill conditioned for that, the numerical routes below decide.
+	if cf, ok := s.closedForm(); ok {
+		if rec, err := s.closedRoute(cf, n, prec); err == nil {
+			return rec, nil
+		}
+	}
 	digits := digitsFor(prec)
 	bits := prec - routeSlack
 	var prevB *Recurrence
@@ -173,7 +182,7 @@ func (s *ExprSource) bothRoutes(ctx context.Context, n int, prec uint, digits in
 	done := make(chan struct{})
 	go func() {
 		defer close(done)
-		rA, errA = s.chebyshevRoute(nu, n, prec)
+		rA, errA = s.chebyshevRoute(nu, n, prec, prec-min(prec, routeSlack))
 	}()
 	rS, err = Stieltjes(ctx, x, c, n, prec)
 	<-done
@@ -207,14 +216,25 @@ func (s *ExprSource) ModifiedMomentRoute(ctx context.Context, n int, prec uint) 
 	if err != nil {
 		return nil, err
 	}
-	return s.chebyshevRoute(nu, n, prec)
+	return s.chebyshevRoute(nu, n, prec, 0)
 }
 
-func (s *ExprSource) chebyshevRoute(nu []*big.Float, n int, prec uint) (*Recurrence, error) {
-	rec, err := chebyshevConverged(func(w uint) (x, a, b []*big.Float) {
+// chebyshevRoute runs the modified Chebyshev algorithm on nu to
+// convergence in its own arithmetic: to prec + 8 bits (chebyshevConverged)
+// when bits is 0, else to bits + 8 bits (chebyshevPair), which is all the
+// comparison of the two routes at bits bits can use.
+func (s *ExprSource) chebyshevRoute(nu []*big.Float, n int, prec, bits uint) (*Recurrence, error) {
+	input := func(w uint) (x, a, b []*big.Float) {
 		a, b = basisPairs(s.Basis, 2*n-1, w)
 		return nu, a, b
-	}, n, prec)
+	}
+	var rec *Recurrence
+	var err error
+	if bits == 0 {
+		rec, err = chebyshevConverged(input, n, prec)
+	} else {
+		rec, err = chebyshevPair(input, n, bits, prec)
+	}
 	if err != nil {
 		return nil, &conditioningError{fmt.Errorf("the modified moments in the %s basis: %w", s.Basis.Name, err)}
 	}

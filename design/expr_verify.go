@@ -24,7 +24,8 @@ func (s *ExprSource) keepMoments(nu, est []*big.Float) {
 //	|sum_i w_i q_j(x_i) - nu_j| <= tol sum_i |w_i| (|q_j(x_i)| + |x_i q_j'(x_i)|) + e_j,
 //
 // nu_j the modified moment of the weight by double-exponential quadrature
-// and e_j its error bound, tol = 10 u, u one unit in the D-th digit, D the
+// and e_j its error bound (for a weight with moments in closed form,
+// moments.ClosedForm, the exact moment and its rounding bound), tol = 10 u, u one unit in the D-th digit, D the
 // largest number of significant digits among the printed values (the
 // criterion of VerifyPrinted). The moments through degree 2N-1 are those
 // the modified-moment route already integrated, so an N-point Gauss rule
@@ -38,6 +39,10 @@ func (s *ExprSource) VerifyRule(ctx context.Context, nodes, weights []string, ma
 	s.mu.Lock()
 	nu, est := s.nu, s.est
 	s.mu.Unlock()
+	if cf, ok := s.closedForm(); ok && len(nu) < maxDeg+1 {
+		// Exact moments, rounded 64 bits beyond the sums of the test.
+		nu, est = cf.Moments(maxDeg+1, pv.prec+64)
+	}
 	if len(nu) < maxDeg+1 {
 		// Ten digits beyond the printed ones keep the moments' own error
 		// far below the tolerance.

@@ -66,10 +66,15 @@ func phase(ctx context.Context, format string, args ...any) {
 // recurrenceMethod names how m's recurrence coefficients are computed, for
 // the phase shown while they are.
 func recurrenceMethod(m RecurrenceSource) string {
-	switch m.(type) {
+	switch m := m.(type) {
 	case *MomentSource:
 		return "Chebyshev algorithm"
-	case *ExprSource, *DiscreteSource:
+	case *ExprSource:
+		if _, ok := m.closedForm(); ok {
+			return "modified Chebyshev algorithm on closed-form moments"
+		}
+		return "Stieltjes procedure"
+	case *DiscreteSource:
 		return "Stieltjes procedure"
 	case FamilySource, *FamilySource:
 		return "closed form"
