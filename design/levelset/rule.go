@@ -155,7 +155,17 @@ func points(g *geom, side Side, q int) (nodes [][3]float64, wts []float64, bd *b
 
 // pointsTaped is points recording its plan on tp (when not nil).
 func pointsTaped(g *geom, side Side, q int, tp *tape) (nodes [][3]float64, wts []float64, bd *builder) {
-	bd = &builder{g: g, q: q, maxDepth: 12 * g.dim, maxSlope: slopeBound, tape: tp}
+	bd = run(g, side, q, tp, func(x [3]float64, w float64) {
+		nodes = append(nodes, x)
+		wts = append(wts, w)
+	})
+	return nodes, wts, bd
+}
+
+// run runs the algorithm at order q, handing every node (in x-space) and
+// its weight (Jacobian included, weight function not) to out.
+func run(g *geom, side Side, q int, tp *tape, out func(x [3]float64, w float64)) *builder {
+	bd := &builder{g: g, q: q, maxDepth: 12 * g.dim, maxSlope: slopeBound, tape: tp}
 	bd.gx, bd.gw = gaussLegendre(q)
 	var b [3]span
 	free := make([]int, g.dim)
@@ -171,10 +181,9 @@ func pointsTaped(g *geom, side Side, q int, tp *tape) (nodes [][3]float64, wts [
 		s = 0
 	}
 	bd.integrate(free, b, []fn{{s: s}}, side == Surface, 0, func(u [3]float64, w float64) {
-		nodes = append(nodes, g.toX(u))
-		wts = append(wts, w*g.jac(u))
+		out(g.toX(u), w*g.jac(u))
 	})
-	return nodes, wts, bd
+	return bd
 }
 
 // slopeBound is the largest variation of d phi/du_k over a box, in units

@@ -55,6 +55,9 @@ type builder struct {
 	overflow           bool // more than maxBoxes splits: the rule is refused
 	lineWork           int
 	tape               *tape // when not nil, the run is recorded (tape.go)
+	bufs               [4]lineBufs
+	warmth             [4][4]warmStart
+	warmNext           [4]int
 }
 
 // integrate emits the rule on the box b over the coordinates free for the
