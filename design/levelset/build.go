@@ -119,14 +119,19 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 		}
 		return r, nil
 	}
-	printShortest(r)
 	return r, nil
 }
 
-// printShortest fills the printed values of a float64 rule with the
-// shortest strings that read back as the same float64 values, all cut
-// from one buffer (one allocation instead of one per number).
-func printShortest(r *Rule) {
+// Print fills PrintedNodes and PrintedWeights of a float64 rule (Digits
+// 0) with the shortest strings that read back as the same float64
+// values, all cut from one buffer; Build leaves them to this (the writers
+// of rule files call it), since formatting half a million numbers would
+// cost more than building the rule. A rule already printed (every rule of
+// Digits > 0) is left as it is.
+func (r *Rule) Print() {
+	if r.PrintedNodes != nil || len(r.Nodes) == 0 {
+		return
+	}
 	cells := 0
 	for _, p := range r.Nodes {
 		cells += len(p) + 1

@@ -57,7 +57,8 @@ type Rule struct {
 	Dim     int
 	Nodes   [][]float64 // float64 mode: each node's coordinates
 	Weights []float64
-	// Printed values: shortest round-trip float64, or Digits digits.
+	// Printed values: Digits digits, filled by Build; or at Digits 0
+	// the shortest round-trip float64, filled by Print.
 	PrintedNodes   [][]string
 	PrintedWeights []string
 	// EstimatedError is max |I_Q(f) - I_(Q+4)(f)| / I_(Q+4)(1) over the
