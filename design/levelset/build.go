@@ -262,8 +262,11 @@ func (g *geom) name(req Request) string {
 type sums struct {
 	dim    int
 	lo, hi [3]float64
-	s      [10]float64
-	n      int
+	// inv[k] is 1/(hi[k]-lo[k]) when that width is a power of two (the
+	// product is then the quotient exactly), else 0: divide.
+	inv [3]float64
+	s   [10]float64
+	n   int
 }
 
 func (g *geom) newSums() *sums {
@@ -278,13 +281,22 @@ func (g *geom) newSums() *sums {
 			}
 		}
 	}
+	for k := 0; k < m.dim; k++ {
+		if fr, _ := math.Frexp(m.hi[k] - m.lo[k]); fr == 0.5 {
+			m.inv[k] = 1 / (m.hi[k] - m.lo[k])
+		}
+	}
 	return m
 }
 
 func (m *sums) add(p [3]float64, w float64) {
 	var xi [3]float64
 	for k := 0; k < m.dim; k++ {
-		xi[k] = (2*p[k] - m.lo[k] - m.hi[k]) / (m.hi[k] - m.lo[k])
+		if m.inv[k] != 0 {
+			xi[k] = (2*p[k] - m.lo[k] - m.hi[k]) * m.inv[k]
+		} else {
+			xi[k] = (2*p[k] - m.lo[k] - m.hi[k]) / (m.hi[k] - m.lo[k])
+		}
 	}
 	m.n++
 	m.s[0] += w
