@@ -156,10 +156,27 @@ func points(g *geom, side Side, q int) (nodes [][3]float64, wts []float64, bd *b
 
 // pointsTaped is points recording its plan on tp (when not nil).
 func pointsTaped(g *geom, side Side, q int, tp *tape) (nodes [][3]float64, wts []float64, bd *builder) {
+	// Collected in chunks and copied once: a slice grown by doubling
+	// would copy (and clear fresh pages for) the rule several times.
+	const chunk = 4096
+	var ns [][][3]float64
+	var ws [][]float64
+	total := 0
 	bd = run(g, side, q, tp, func(x [3]float64, w float64) {
-		nodes = append(nodes, x)
-		wts = append(wts, w)
+		if total%chunk == 0 {
+			ns, ws = append(ns, make([][3]float64, 0, chunk)), append(ws, make([]float64, 0, chunk))
+		}
+		last := len(ns) - 1
+		ns[last], ws[last] = append(ns[last], x), append(ws[last], w)
+		total++
 	})
+	if total == 0 {
+		return nil, nil, bd
+	}
+	nodes, wts = make([][3]float64, 0, total), make([]float64, 0, total)
+	for i := range ns {
+		nodes, wts = append(nodes, ns[i]...), append(wts, ws[i]...)
+	}
 	return nodes, wts, bd
 }
 
