@@ -189,12 +189,21 @@ func (bd *builder) bracketed(f *fn, k int, free []int, p [3]float64, a, c, ha, h
 	// Newton starts from the root of the same function on the line
 	// before (the neighbouring node of the level below) when it lies in
 	// the bracket, else from the middle; the bracket keeps it safe.
+	// With two roots before, their linear extrapolation (the next node of
+	// the level below is usually the next along the same line there) is
+	// tried first.
 	t := 0.5 * (a + c)
 	w := bd.warm(f, len(free))
-	if g := w.t; w.f == f && (g-lo)*(g-hi) < 0 {
-		t = g
+	if w.f == f {
+		if g := 2*w.t - w.t0; w.n >= 2 && (g-lo)*(g-hi) < 0 {
+			t = g
+		} else if g := w.t; (g-lo)*(g-hi) < 0 {
+			t = g
+		}
+	} else {
+		w.n = 0
 	}
-	defer func() { w.f, w.t = f, t }()
+	defer func() { w.f, w.t0, w.t, w.n = f, w.t, t, w.n+1 }()
 	for it := 0; it < 200; it++ {
 		q := p
 		q[k] = t
@@ -235,8 +244,9 @@ type lineBufs struct {
 
 // warmStart is the last root found for the function f at one level.
 type warmStart struct {
-	f *fn
-	t float64
+	f     *fn
+	t0, t float64 // the last two roots, t the later
+	n     int     // roots recorded for f
 }
 
 // warm returns the warm-start slot of f at the level with n free
