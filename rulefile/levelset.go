@@ -52,6 +52,7 @@ const ErrorTestText = "largest difference, relative to the measure, between this
 
 // FromLevelSetRule makes the file of a built cut-element rule.
 func FromLevelSetRule(r *levelset.Rule, program string) *LevelSetFile {
+	r.Print()
 	f := &LevelSetFile{
 		Format: FormatName, Kind: "level-set",
 		Domain: LevelSetDomain{Shape: LevelSetShape, Element: r.Shape, LevelSet: r.LevelSet, Side: r.Side.String()},

@@ -97,6 +97,7 @@ func runLevelSetElement(ctx context.Context, o *elementOptions, cmd *cobra.Comma
 }
 
 func writeLevelSetRule(w *strings.Builder, r *levelset.Rule, format string) error {
+	r.Print()
 	coords := []string{"x", "y", "z"}[:r.Dim]
 	switch format {
 	case "json":

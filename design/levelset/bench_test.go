@@ -29,6 +29,20 @@ func BenchmarkLevelSetBall(b *testing.B) {
 	}
 }
 
+// BenchmarkLevelSetBallPrinted is BenchmarkLevelSetBall with the printed
+// (shortest round-trip) values that a rule file needs: Rule.Print, which
+// Build leaves to the writers. No target.
+func BenchmarkLevelSetBallPrinted(b *testing.B) {
+	req := Request{Shape: "hexahedron", LevelSet: "(x-0.1)^2+(y+0.05)^2+(z-0.02)^2-0.64", Order: 8}
+	for i := 0; i < b.N; i++ {
+		r, err := Build(context.Background(), req)
+		if err != nil {
+			b.Fatal(err)
+		}
+		r.Print()
+	}
+}
+
 // BenchmarkLevelSetDiscDigits builds the 30-digit rule of order 40 for the
 // disc x^2 + y^2 < 0.49 on the reference quadrilateral (the accuracy test
 // of TestDiscThirtyDigits), error estimate included. No target yet.

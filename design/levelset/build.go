@@ -70,7 +70,7 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 	keepN, keepW := nodes[:0], wts[:0]
 	for i, p := range nodes {
 		if req.Side != Surface {
-			v := g.phi.Eval64(p[:g.dim]...)
+			v := g.compiled().Value(p[:g.dim])
 			if (req.Side == Inside && !(v < 0)) || (req.Side == Outside && !(v > 0)) {
 				dropped++
 				continue
@@ -94,38 +94,73 @@ func Build(ctx context.Context, req Request) (*Rule, error) {
 			wts[i] *= v
 		}
 	}
-	hiN, hiW, _ := points(g, req.Side, req.Order+4)
-	if wexpr != nil {
-		for i, p := range hiN {
-			hiW[i] *= wexpr.Eval64(p[:g.dim]...)
-		}
+	// The rule of order Q+4 is only summed, never stored.
+	lo := g.newSums()
+	for i, p := range nodes {
+		lo.add(p, wts[i])
 	}
-	r.EstimatedError = g.compare(nodes, wts, hiN, hiW)
+	r.EstimatedError = compareSums(lo, sumsAt(g, req.Side, req.Order+4, wexpr))
 	for _, w := range wts {
 		r.Measure += w
 	}
+	flat := make([]float64, g.dim*len(nodes))
+	r.Nodes = make([][]float64, len(nodes))
 	for i, p := range nodes {
 		if !(wts[i] > 0) {
 			return nil, fmt.Errorf("level set %q: a weight %v came out not positive at (%s); the rule is refused", req.LevelSet, wts[i], coords(p[:g.dim]))
 		}
-		r.Nodes = append(r.Nodes, append([]float64(nil), p[:g.dim]...))
-		r.Weights = append(r.Weights, wts[i])
+		r.Nodes[i] = flat[g.dim*i : g.dim*(i+1) : g.dim*(i+1)]
+		copy(r.Nodes[i], p[:g.dim])
 	}
+	r.Weights = wts
 	if req.Digits > 0 {
 		if err := refine(ctx, g, r, wexpr); err != nil {
 			return nil, err
 		}
 		return r, nil
 	}
-	r.PrintedNodes = make([][]string, len(r.Nodes))
-	r.PrintedWeights = make([]string, len(r.Weights))
+	return r, nil
+}
+
+// Print fills PrintedNodes and PrintedWeights of a float64 rule (Digits
+// 0) with the shortest strings that read back as the same float64
+// values, all cut from one buffer; Build leaves them to this (the writers
+// of rule files call it), since formatting half a million numbers would
+// cost more than building the rule. A rule already printed (every rule of
+// Digits > 0) is left as it is.
+func (r *Rule) Print() {
+	if r.PrintedNodes != nil || len(r.Nodes) == 0 {
+		return
+	}
+	cells := 0
+	for _, p := range r.Nodes {
+		cells += len(p) + 1
+	}
+	// 24 bytes hold any shortest float64 ("-1.2345678901234567e-308").
+	buf := make([]byte, 0, 24*cells)
+	ends := make([]int, 0, cells)
 	for i, p := range r.Nodes {
 		for _, c := range p {
-			r.PrintedNodes[i] = append(r.PrintedNodes[i], strconv.FormatFloat(c, 'g', -1, 64))
+			buf = strconv.AppendFloat(buf, c, 'g', -1, 64)
+			ends = append(ends, len(buf))
 		}
-		r.PrintedWeights[i] = strconv.FormatFloat(r.Weights[i], 'g', -1, 64)
+		buf = strconv.AppendFloat(buf, r.Weights[i], 'g', -1, 64)
+		ends = append(ends, len(buf))
 	}
-	return r, nil
+	all := string(buf)
+	strs := make([]string, len(ends))
+	start := 0
+	for j, e := range ends {
+		strs[j], start = all[start:e], e
+	}
+	r.PrintedNodes = make([][]string, len(r.Nodes))
+	r.PrintedWeights = make([]string, len(r.Nodes))
+	j := 0
+	for i, p := range r.Nodes {
+		r.PrintedNodes[i] = strs[j : j+len(p) : j+len(p)]
+		r.PrintedWeights[i] = strs[j+len(p)]
+		j += len(p) + 1
+	}
 }
 
 func joinNote(a, b string) string {
@@ -220,51 +255,99 @@ func (g *geom) name(req Request) string {
 	return req.Shape
 }
 
+// sums accumulates the test integrands of the estimated error (see
+// Rule.EstimatedError) over a rule: 1, xi_k, xi_k xi_j (at most 10 in
+// 3-D), xi the coordinates centred and scaled to [-1, 1] on the element's
+// bounding box.
+type sums struct {
+	dim    int
+	lo, hi [3]float64
+	// inv[k] is 1/(hi[k]-lo[k]) when that width is a power of two (the
+	// product is then the quotient exactly), else 0: divide.
+	inv [3]float64
+	s   [10]float64
+	n   int
+}
+
+func (g *geom) newSums() *sums {
+	m := &sums{dim: g.dim}
+	for i, v := range g.vertices() {
+		for k := range v {
+			if i == 0 || v[k] < m.lo[k] {
+				m.lo[k] = v[k]
+			}
+			if i == 0 || v[k] > m.hi[k] {
+				m.hi[k] = v[k]
+			}
+		}
+	}
+	for k := 0; k < m.dim; k++ {
+		if fr, _ := math.Frexp(m.hi[k] - m.lo[k]); fr == 0.5 {
+			m.inv[k] = 1 / (m.hi[k] - m.lo[k])
+		}
+	}
+	return m
+}
+
+func (m *sums) add(p [3]float64, w float64) {
+	var xi [3]float64
+	for k := 0; k < m.dim; k++ {
+		if m.inv[k] != 0 {
+			xi[k] = (2*p[k] - m.lo[k] - m.hi[k]) * m.inv[k]
+		} else {
+			xi[k] = (2*p[k] - m.lo[k] - m.hi[k]) / (m.hi[k] - m.lo[k])
+		}
+	}
+	m.n++
+	m.s[0] += w
+	j := 1
+	for k := 0; k < m.dim; k++ {
+		m.s[j] += w * xi[k]
+		j++
+	}
+	for k := 0; k < m.dim; k++ {
+		for l := k; l < m.dim; l++ {
+			m.s[j] += w * xi[k] * xi[l]
+			j++
+		}
+	}
+}
+
+// sumsAt runs the algorithm at order q and sums the test integrands over
+// its rule (the weight function, when given, included) without storing
+// the rule.
+func sumsAt(g *geom, side Side, q int, wexpr *moments.Expr) *sums {
+	m := g.newSums()
+	run(g, side, q, nil, func(x [3]float64, w float64) {
+		if wexpr != nil {
+			w *= wexpr.Eval64(x[:g.dim]...)
+		}
+		m.add(x, w)
+	})
+	return m
+}
+
 // compare is the estimated error of the rule (nodes, wts) against the one
 // of order Q+4 (hn, hw): see Rule.EstimatedError.
 func (g *geom) compare(nodes [][3]float64, wts []float64, hn [][3]float64, hw []float64) float64 {
-	lo, hi := [3]float64{}, [3]float64{}
-	for i, v := range g.vertices() {
-		for k := range v {
-			if i == 0 || v[k] < lo[k] {
-				lo[k] = v[k]
-			}
-			if i == 0 || v[k] > hi[k] {
-				hi[k] = v[k]
-			}
-		}
+	a, b := g.newSums(), g.newSums()
+	for i, p := range nodes {
+		a.add(p, wts[i])
 	}
-	// The test integrands 1, xi_k, xi_k xi_j (at most 10 in 3-D).
-	sum := func(ns [][3]float64, ws []float64) []float64 {
-		s := make([]float64, 1+g.dim+g.dim*(g.dim+1)/2)
-		for i, p := range ns {
-			var xi [3]float64
-			for k := 0; k < g.dim; k++ {
-				xi[k] = (2*p[k] - lo[k] - hi[k]) / (hi[k] - lo[k])
-			}
-			w := ws[i]
-			s[0] += w
-			m := 1
-			for k := 0; k < g.dim; k++ {
-				s[m] += w * xi[k]
-				m++
-			}
-			for k := 0; k < g.dim; k++ {
-				for j := k; j < g.dim; j++ {
-					s[m] += w * xi[k] * xi[j]
-					m++
-				}
-			}
-		}
-		return s
+	for i, p := range hn {
+		b.add(p, hw[i])
 	}
-	a, b := sum(nodes, wts), sum(hn, hw)
-	if len(nodes) == 0 || len(hn) == 0 || b[0] == 0 {
+	return compareSums(a, b)
+}
+
+// compareSums is max |a_j - b_j| / |b_0| over the test integrands.
+func compareSums(a, b *sums) float64 {
+	if a.n == 0 || b.n == 0 || b.s[0] == 0 {
 		return math.Inf(1)
 	}
 	e := 0.0
-	for j := range a {
-		e = math.Max(e, math.Abs(a[j]-b[j])/math.Abs(b[0]))
+	for j := 0; j < 1+a.dim+a.dim*(a.dim+1)/2; j++ {
+		e = math.Max(e, math.Abs(a.s[j]-b.s[j])/math.Abs(b.s[0]))
 	}
 	return e
 }

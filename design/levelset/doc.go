@@ -11,7 +11,8 @@
 // a graph over the other coordinates) the problem reduces by one dimension
 // to the faces, with Saye's sign rules; elsewhere the box is split into
 // halves across its widest side (also where the height function may be
-// steep, which would slow the convergence). Along each line the roots of
+// steep, or its square-root branch point near against the width of the
+// next level, either of which would slow the convergence). Along each line the roots of
 // phi are bracketed and polished by safeguarded Newton steps, and every
 // piece gets a Gauss-Legendre rule of the requested order Q (from package
 // design/fast in float64). With Request.Digits the float64 plan (boxes,
@@ -24,8 +25,9 @@
 // collapsed (Duffy) map, its Jacobian folded into the weights.
 //
 // The gradient of phi comes from forward-mode automatic differentiation
-// of the parsed expression (moments.Expr.Grad64, GradSpan), not from
-// differences. Weights are positive by construction (products of
+// of the parsed expression (moments.Expr.Grad64, GradSpan; in the float64
+// inner loops the same operations compiled once, moments.Prog64), not
+// from differences. Weights are positive by construction (products of
 // Gauss-Legendre weights, lengths and Jacobians), and every node lies
 // strictly on the side asked. Rules are not exact for any polynomial
 // space, so no degree is claimed; the estimated error compares the rule

@@ -34,6 +34,19 @@ type geom struct {
 	kind   mapKind
 	lo, hi [3]float64
 	phi    *moments.Expr
+	// prog is phi compiled for the float64 inner loops (the same numbers
+	// as phi.Eval64 and phi.Grad64, faster), made for the phi it names.
+	prog   *moments.Prog64
+	progOf *moments.Expr
+}
+
+// compiled is the float64 program of phi (compiled at the first use, and
+// again if phi was replaced). A geom is used by one goroutine.
+func (g *geom) compiled() *moments.Prog64 {
+	if g.prog == nil || g.progOf != g.phi {
+		g.prog, g.progOf = g.phi.Compile64(), g.phi
+	}
+	return g.prog
 }
 
 // toX maps u onto the element.
@@ -61,7 +74,7 @@ func (g *geom) jac(u [3]float64) float64 {
 // eval returns phi(x(u)), its gradient in u (gu) and in x (gx).
 func (g *geom) eval(u [3]float64) (v float64, gu, gx [3]float64) {
 	x := g.toX(u)
-	v = g.phi.Grad64(x[:g.dim], gx[:g.dim])
+	v = g.compiled().Grad(x[:g.dim], gx[:g.dim])
 	switch g.kind {
 	case duffyTri:
 		gu[0] = gx[0] - u[1]*gx[1]
@@ -79,7 +92,7 @@ func (g *geom) eval(u [3]float64) (v float64, gu, gx [3]float64) {
 // value is phi(x(u)) alone.
 func (g *geom) value(u [3]float64) float64 {
 	x := g.toX(u)
-	return g.phi.Eval64(x[:g.dim]...)
+	return g.compiled().Value(x[:g.dim])
 }
 
 // evalSpan encloses phi(x(u)) and its u-gradient over the box b.

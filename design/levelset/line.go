@@ -2,6 +2,7 @@ package levelset
 
 import (
 	"math"
+	"slices"
 	"sort"
 )
 
@@ -16,7 +17,11 @@ import (
 // prove each function monotone along k.
 func (bd *builder) line(k int, free []int, b [3]span, p [3]float64, w float64, fs []fn, surface, robust bool, emit emitter) {
 	a, c := b[k].Lo, b[k].Hi
-	var roots []float64
+	// The buffers of this level: an emission below runs only the lines of
+	// levels with more free coordinates, which have buffers of their own.
+	lb := &bd.bufs[len(free)]
+	roots := lb.roots[:0]
+	defer func() { lb.roots = roots[:0] }()
 	for i := range fs {
 		if surface && i > 0 {
 			break
@@ -46,9 +51,11 @@ func (bd *builder) line(k int, free []int, b [3]span, p [3]float64, w float64, f
 		}
 		return
 	}
-	sort.Float64s(roots)
-	cuts := append(append([]float64{a}, roots...), c)
-	var kept []int
+	slices.Sort(roots)
+	cuts := append(append(lb.cuts[:0], a), roots...)
+	cuts = append(cuts, c)
+	kept := lb.kept[:0]
+	defer func() { lb.cuts, lb.kept = cuts[:0], kept[:0] }()
 	for j := 0; j+1 < len(cuts); j++ {
 		t0, t1 := cuts[j], cuts[j+1]
 		if !(t1 > t0) {
@@ -67,7 +74,9 @@ func (bd *builder) line(k int, free []int, b [3]span, p [3]float64, w float64, f
 			kept = append(kept, j)
 		}
 	}
-	bd.recLine(k, free, b, cuts, kept)
+	if bd.tape != nil {
+		bd.recLine(k, free, b, cuts, slices.Clone(kept))
+	}
 	for _, j := range kept {
 		t0, t1 := cuts[j], cuts[j+1]
 		q := p
@@ -177,7 +186,24 @@ func (bd *builder) bracketed(f *fn, k int, free []int, p [3]float64, a, c, ha, h
 	if ha > 0 {
 		lo, hi = c, a // keep h(lo) < 0 < h(hi)
 	}
+	// Newton starts from the root of the same function on the line
+	// before (the neighbouring node of the level below) when it lies in
+	// the bracket, else from the middle; the bracket keeps it safe.
+	// With two roots before, their linear extrapolation (the next node of
+	// the level below is usually the next along the same line there) is
+	// tried first.
 	t := 0.5 * (a + c)
+	w := bd.warm(f, len(free))
+	if w.f == f {
+		if g := 2*w.t - w.t0; w.n >= 2 && (g-lo)*(g-hi) < 0 {
+			t = g
+		} else if g := w.t; (g-lo)*(g-hi) < 0 {
+			t = g
+		}
+	} else {
+		w.n = 0
+	}
+	defer func() { w.f, w.t0, w.t, w.n = f, w.t, t, w.n+1 }()
 	for it := 0; it < 200; it++ {
 		q := p
 		q[k] = t
@@ -208,4 +234,31 @@ func (bd *builder) bracketed(f *fn, k int, free []int, p [3]float64, a, c, ha, h
 
 func ulp(t float64) float64 {
 	return math.Nextafter(math.Abs(t), math.Inf(1)) - math.Abs(t) + math.SmallestNonzeroFloat64
+}
+
+// lineBufs are the reused buffers of the lines of one level.
+type lineBufs struct {
+	roots, cuts []float64
+	kept        []int
+}
+
+// warmStart is the last root found for the function f at one level.
+type warmStart struct {
+	f     *fn
+	t0, t float64 // the last two roots, t the later
+	n     int     // roots recorded for f
+}
+
+// warm returns the warm-start slot of f at the level with n free
+// coordinates: the one already holding f, else the least recently
+// filled of a few.
+func (bd *builder) warm(f *fn, n int) *warmStart {
+	ws := &bd.warmth[n]
+	for i := range ws {
+		if ws[i].f == f {
+			return &ws[i]
+		}
+	}
+	bd.warmNext[n] = (bd.warmNext[n] + 1) % len(ws)
+	return &ws[bd.warmNext[n]]
 }

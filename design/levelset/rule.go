@@ -57,7 +57,8 @@ type Rule struct {
 	Dim     int
 	Nodes   [][]float64 // float64 mode: each node's coordinates
 	Weights []float64
-	// Printed values: shortest round-trip float64, or Digits digits.
+	// Printed values: Digits digits, filled by Build; or at Digits 0
+	// the shortest round-trip float64, filled by Print.
 	PrintedNodes   [][]string
 	PrintedWeights []string
 	// EstimatedError is max |I_Q(f) - I_(Q+4)(f)| / I_(Q+4)(1) over the
@@ -155,7 +156,34 @@ func points(g *geom, side Side, q int) (nodes [][3]float64, wts []float64, bd *b
 
 // pointsTaped is points recording its plan on tp (when not nil).
 func pointsTaped(g *geom, side Side, q int, tp *tape) (nodes [][3]float64, wts []float64, bd *builder) {
-	bd = &builder{g: g, q: q, maxDepth: 12 * g.dim, maxSlope: slopeBound, tape: tp}
+	// Collected in chunks and copied once: a slice grown by doubling
+	// would copy (and clear fresh pages for) the rule several times.
+	const chunk = 4096
+	var ns [][][3]float64
+	var ws [][]float64
+	total := 0
+	bd = run(g, side, q, tp, func(x [3]float64, w float64) {
+		if total%chunk == 0 {
+			ns, ws = append(ns, make([][3]float64, 0, chunk)), append(ws, make([]float64, 0, chunk))
+		}
+		last := len(ns) - 1
+		ns[last], ws[last] = append(ns[last], x), append(ws[last], w)
+		total++
+	})
+	if total == 0 {
+		return nil, nil, bd
+	}
+	nodes, wts = make([][3]float64, 0, total), make([]float64, 0, total)
+	for i := range ns {
+		nodes, wts = append(nodes, ns[i]...), append(wts, ws[i]...)
+	}
+	return nodes, wts, bd
+}
+
+// run runs the algorithm at order q, handing every node (in x-space) and
+// its weight (Jacobian included, weight function not) to out.
+func run(g *geom, side Side, q int, tp *tape, out func(x [3]float64, w float64)) *builder {
+	bd := &builder{g: g, q: q, maxDepth: 12 * g.dim, maxSlope: slopeBound, tape: tp}
 	bd.gx, bd.gw = gaussLegendre(q)
 	var b [3]span
 	free := make([]int, g.dim)
@@ -171,10 +199,9 @@ func pointsTaped(g *geom, side Side, q int, tp *tape) (nodes [][3]float64, wts [
 		s = 0
 	}
 	bd.integrate(free, b, []fn{{s: s}}, side == Surface, 0, func(u [3]float64, w float64) {
-		nodes = append(nodes, g.toX(u))
-		wts = append(wts, w*g.jac(u))
+		out(g.toX(u), w*g.jac(u))
 	})
-	return nodes, wts, bd
+	return bd
 }
 
 // slopeBound is the largest variation of d phi/du_k over a box, in units
