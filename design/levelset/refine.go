@@ -7,6 +7,7 @@ import (
 	"math/big"
 	"strconv"
 	"strings"
+	"sync"
 
 	"quadwright/design"
 	"quadwright/moments"
@@ -41,9 +42,13 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 	}
 	p1 := precision.WorkingPrec(d, r.Order)
 	p2 := p1 + 64
+	tp, err := record(g, r.Side, r.Order)
+	if err != nil {
+		return err
+	}
 	runs := [2]*xrule{}
 	for i, p := range []uint{p1, p2} {
-		x, err := runRule(ctx, g, r.Side, r.Order, p, d+12+20*i, size, wexpr)
+		x, err := replayRule(ctx, g, tp, r.Order, p, d+12+20*i, size, wexpr)
 		if err != nil {
 			return err
 		}
@@ -57,12 +62,22 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 	r.Nodes, r.Weights = make([][]float64, n), make([]float64, n)
 	r.PrintedNodes, r.PrintedWeights = make([][]string, n), make([]string, n)
 	unit := math.Pow(10, math.Floor(math.Log10(size))-float64(d)+1) // one unit in the last printed place of a coordinate
+	// The points of a line share their other coordinates (the same
+	// values, by pointer, in both replays): each is printed once.
+	printed := map[[2]*big.Float]string{}
+	chk := newPrintCheck(g, r, p2, unit)
 	for i := 0; i < n; i++ {
 		for k := 0; k < g.dim; k++ {
 			xf, _ := b.nodes[i][k].Float64()
-			sa, sb := printCoord(a.nodes[i][k], xf, unit, d), printCoord(b.nodes[i][k], xf, unit, d)
-			if sa != sb {
-				return fmt.Errorf("--digits %d: a node coordinate came out %s at %d bits and %s at %d bits; the rule could not be confirmed to that many digits", d, sa, p1, sb, p2)
+			key := [2]*big.Float{a.nodes[i][k], b.nodes[i][k]}
+			sb, ok := printed[key]
+			if !ok {
+				sa := printCoord(a.nodes[i][k], xf, unit, d)
+				sb = printCoord(b.nodes[i][k], xf, unit, d)
+				if sa != sb {
+					return fmt.Errorf("--digits %d: a node coordinate came out %s at %d bits and %s at %d bits; the rule could not be confirmed to that many digits", d, sa, p1, sb, p2)
+				}
+				printed[key] = sb
 			}
 			r.Nodes[i] = append(r.Nodes[i], xf)
 			r.PrintedNodes[i] = append(r.PrintedNodes[i], sb)
@@ -76,7 +91,7 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 		}
 		r.Weights[i], _ = b.wts[i].Float64()
 		r.PrintedWeights[i] = sb
-		if err := g.checkPrinted(r, r.PrintedNodes[i], p2, unit); err != nil {
+		if err := chk.node(r.PrintedNodes[i]); err != nil {
 			return err
 		}
 	}
@@ -84,7 +99,11 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 	// of Build where it is well above float64 rounding, else both rules
 	// at p1 (which costs more than the rule itself).
 	if !(r.EstimatedError >= float64EstimateFloor) {
-		hi, err := runRule(ctx, g, r.Side, r.Order+4, p1, d+12, size, wexpr)
+		tq, err := record(g, r.Side, r.Order+4)
+		if err != nil {
+			return err
+		}
+		hi, err := replayRule(ctx, g, tq, r.Order+4, p1, d+12, size, wexpr)
 		if err != nil {
 			return err
 		}
@@ -111,21 +130,30 @@ type xrule struct {
 	wts   []*big.Float
 }
 
-// runRule records the float64 plan of order q and replays it at prec
-// bits, with Gauss-Legendre rules of glDigits digits.
-func runRule(ctx context.Context, g *geom, side Side, q int, prec uint, glDigits int, size float64, wexpr *moments.Expr) (*xrule, error) {
+// record runs the float64 algorithm at order q on g with a tape.
+func record(g *geom, side Side, q int) (*tape, error) {
 	tp := &tape{}
 	_, _, bd := pointsTaped(g, side, q, tp)
 	if bd.overflow {
 		return nil, fmt.Errorf("level set: needs more than %d subdivisions of the element to resolve at order %d", maxBoxes, q)
 	}
+	return tp, nil
+}
+
+// replayRule replays the float64 plan tp of order q at prec bits, with
+// Gauss-Legendre rules of glDigits digits. The nodes keep the values the
+// replay made (shared between the points of a line); the weights are
+// new.
+func replayRule(ctx context.Context, g *geom, tp *tape, q int, prec uint, glDigits int, size float64, wexpr *moments.Expr) (*xrule, error) {
 	gx, gw, err := gaussLegendreBig(ctx, q, glDigits, prec)
 	if err != nil {
 		return nil, err
 	}
-	rp := &replay{g: g, prec: prec, gx: gx, gw: gw, ev: tp.ev}
-	rp.tol = new(big.Float).SetPrec(prec).SetFloat64(size)
-	rp.tol.SetMantExp(rp.tol, -int(prec)+8)
+	rp := newReplay(g, prec, gx, gw, tp.ev, size)
+	var wt *moments.GradTape
+	if wexpr != nil {
+		wt = wexpr.CompileGrad(prec)
+	}
 	out := &xrule{}
 	var werr error
 	rp.integrate(func(u xpoint, w *big.Float) {
@@ -133,20 +161,18 @@ func runRule(ctx context.Context, g *geom, side Side, q int, prec uint, glDigits
 			return
 		}
 		x := g.toXBig(u, prec)
-		wt := new(big.Float).SetPrec(prec).Mul(w, g.jacBig(u, prec))
-		if wexpr != nil {
-			v, err := wexpr.EvalBig(prec, x[:g.dim]...)
+		if g.kind != identity {
+			w.Mul(w, g.jacBig(u, prec))
+		}
+		if wt != nil {
+			v, _, err := wt.Eval(x[:g.dim], nil)
 			if err != nil || v.Sign() <= 0 {
 				werr = fmt.Errorf("weight %q: not positive and finite at a node of the rule", wexpr.String())
 				return
 			}
-			wt.Mul(wt, v)
+			w.Mul(w, v)
 		}
-		var c xpoint
-		for k := 0; k < g.dim; k++ {
-			c[k] = new(big.Float).SetPrec(prec).Set(x[k])
-		}
-		out.nodes, out.wts = append(out.nodes, c), append(out.wts, wt)
+		out.nodes, out.wts = append(out.nodes, x), append(out.wts, w)
 	})
 	if rp.err != nil {
 		return nil, rp.err
@@ -164,6 +190,20 @@ func runRule(ctx context.Context, g *geom, side Side, q int, prec uint, glDigits
 // extended-precision engine of package design (Jacobi with alpha = beta =
 // 0), confirmed there to digits digits, rounded to prec bits.
 func gaussLegendreBig(ctx context.Context, q, digits int, prec uint) (x, w []*big.Float, err error) {
+	key := glKey{q, digits, prec}
+	glCache.Lock()
+	c, ok := glCache.m[key]
+	glCache.Unlock()
+	if ok {
+		return c[0], c[1], nil
+	}
+	defer func() {
+		if err == nil {
+			glCache.Lock()
+			glCache.m[key] = [2][]*big.Float{x, w}
+			glCache.Unlock()
+		}
+	}()
 	fam, err := moments.NewFamily("jacobi", new(big.Rat), new(big.Rat), nil)
 	if err != nil {
 		panic("levelset: " + err.Error())
@@ -177,6 +217,18 @@ func gaussLegendreBig(ctx context.Context, q, digits int, prec uint) (x, w []*bi
 		w = append(w, new(big.Float).SetPrec(prec).Set(rl.WeightValues[i]))
 	}
 	return x, w, nil
+}
+
+// glCache keeps the Gauss-Legendre rules made by gaussLegendreBig, by
+// order, digits and precision: their values are never changed.
+var glCache = struct {
+	sync.Mutex
+	m map[glKey][2][]*big.Float
+}{m: map[glKey][2][]*big.Float{}}
+
+type glKey struct {
+	q, digits int
+	prec      uint
 }
 
 // printCoord prints the coordinate v with digits relative to the
@@ -194,41 +246,66 @@ func printCoord(v *big.Float, xf, unit float64, d int) string {
 	return precision.FormatSig(v, sig)
 }
 
-// checkPrinted reads the printed node back and tests its side at prec
-// bits.
-func (g *geom) checkPrinted(r *Rule, node []string, prec uint, unit float64) error {
-	var u xpoint
-	x := make([]*big.Float, g.dim)
+// printCheck reads printed nodes back and tests their side at prec bits
+// (phi by a compiled tape; a coordinate string shared by several nodes is
+// read once).
+type printCheck struct {
+	g    *geom
+	r    *Rule
+	prec uint
+	unit *big.Float
+	phi  *moments.GradTape
+	read map[string]*big.Float
+	x    []*big.Float
+	n, t *big.Float
+}
+
+func newPrintCheck(g *geom, r *Rule, prec uint, unit float64) *printCheck {
+	u := new(big.Float).SetPrec(prec).SetFloat64(10 * unit)
+	return &printCheck{g: g, r: r, prec: prec, unit: u, phi: g.phi.CompileGrad(prec), read: map[string]*big.Float{},
+		x: make([]*big.Float, g.dim), n: new(big.Float).SetPrec(prec), t: new(big.Float).SetPrec(prec)}
+}
+
+// node tests one printed node: strictly on the side asked, or for the
+// surface within 10 units of the last printed place, times the gradient,
+// of the interface.
+func (c *printCheck) node(node []string) error {
 	for k, s := range node {
-		v, _, err := big.ParseFloat(s, 10, prec, big.ToNearestEven)
-		if err != nil {
-			panic("levelset: a printed coordinate does not read back: " + s)
+		v, ok := c.read[s]
+		if !ok {
+			var err error
+			if v, _, err = big.ParseFloat(s, 10, c.prec, big.ToNearestEven); err != nil {
+				panic("levelset: a printed coordinate does not read back: " + s)
+			}
+			c.read[s] = v
 		}
-		x[k] = v
-		u[k] = v
+		c.x[k] = v
 	}
-	gr := make([]*big.Float, g.dim)
-	v, err := g.phi.GradBig(prec, x, gr)
+	var tg [][]*big.Float
+	if c.r.Side == Surface {
+		tg = c.phi.Unit()
+	}
+	v, gr, err := c.phi.Eval(c.x, tg)
 	if err != nil {
-		return fmt.Errorf("level set %q: undefined at the node (%s)", r.LevelSet, joinCoords(node))
+		return fmt.Errorf("level set %q: undefined at the node (%s)", c.r.LevelSet, joinCoords(node))
 	}
 	ok := false
-	switch r.Side {
+	switch c.r.Side {
 	case Inside:
 		ok = v.Sign() < 0
 	case Outside:
 		ok = v.Sign() > 0
 	default:
-		n := new(big.Float).SetPrec(prec)
-		for _, c := range gr {
-			n.Add(n, new(big.Float).Mul(c, c))
+		c.n.SetInt64(0)
+		for _, d := range gr {
+			c.n.Add(c.n, c.t.Mul(d, d))
 		}
-		n.Sqrt(n)
-		n.Mul(n, big.NewFloat(10*unit))
-		ok = new(big.Float).Abs(v).Cmp(n) <= 0
+		c.n.Sqrt(c.n)
+		c.n.Mul(c.n, c.unit)
+		ok = c.t.Abs(v).Cmp(c.n) <= 0
 	}
 	if !ok {
-		return fmt.Errorf("level set %q: the printed node (%s) is not on the %s side to %d digits; the rule is refused", r.LevelSet, joinCoords(node), r.Side, r.Digits)
+		return fmt.Errorf("level set %q: the printed node (%s) is not on the %s side to %d digits; the rule is refused", c.r.LevelSet, joinCoords(node), c.r.Side, c.r.Digits)
 	}
 	return nil
 }
@@ -258,19 +335,28 @@ func (g *geom) compareX(a, b *xrule, prec uint) float64 {
 			}
 		}
 	}
+	// (2 x - lo - hi) / (hi - lo) = x s - c, s = 2/(hi-lo), c = (lo+hi)/(hi-lo)
+	var sc, cc [3]*big.Float
+	for k := 0; k < g.dim; k++ {
+		sc[k] = new(big.Float).SetPrec(prec).SetFloat64(hi[k] - lo[k])
+		sc[k].Quo(big.NewFloat(2), sc[k])
+		cc[k] = new(big.Float).SetPrec(prec).SetFloat64(lo[k] + hi[k])
+		cc[k].Quo(cc[k], new(big.Float).SetPrec(prec).SetFloat64(hi[k]-lo[k]))
+	}
+	var xi [3]*big.Float
+	for k := range xi {
+		xi[k] = new(big.Float).SetPrec(prec)
+	}
+	t, wx := new(big.Float).SetPrec(prec), new(big.Float).SetPrec(prec)
 	sum := func(x *xrule) []*big.Float {
 		s := make([]*big.Float, 1+g.dim+g.dim*(g.dim+1)/2)
 		for i := range s {
 			s[i] = new(big.Float).SetPrec(prec)
 		}
-		t := new(big.Float).SetPrec(prec)
 		for i, p := range x.nodes {
-			var xi [3]*big.Float
 			for k := 0; k < g.dim; k++ {
-				// (2 x - lo - hi) / (hi - lo)
-				xi[k] = new(big.Float).SetPrec(prec).SetMantExp(p[k], 1)
-				xi[k].Sub(xi[k], big.NewFloat(lo[k]+hi[k]))
-				xi[k].Quo(xi[k], big.NewFloat(hi[k]-lo[k]))
+				xi[k].Mul(p[k], sc[k])
+				xi[k].Sub(xi[k], cc[k])
 			}
 			w := x.wts[i]
 			s[0].Add(s[0], w)
@@ -280,9 +366,9 @@ func (g *geom) compareX(a, b *xrule, prec uint) float64 {
 				m++
 			}
 			for k := 0; k < g.dim; k++ {
+				wx.Mul(w, xi[k])
 				for j := k; j < g.dim; j++ {
-					t.Mul(w, xi[k])
-					s[m].Add(s[m], t.Mul(t, xi[j]))
+					s[m].Add(s[m], t.Mul(wx, xi[j]))
 					m++
 				}
 			}
