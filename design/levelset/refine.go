@@ -349,9 +349,9 @@ func (g *geom) compareX(a, b *xrule, prec uint) float64 {
 	}
 	t, wx := new(big.Float).SetPrec(prec), new(big.Float).SetPrec(prec)
 	sum := func(x *xrule) []*big.Float {
-		s := make([]*big.Float, 1+g.dim+g.dim*(g.dim+1)/2)
+		s := make([]bigSum, 1+g.dim+g.dim*(g.dim+1)/2)
 		for i := range s {
-			s[i] = new(big.Float).SetPrec(prec)
+			s[i] = newBigSum(prec)
 		}
 		for i, p := range x.nodes {
 			for k := 0; k < g.dim; k++ {
@@ -359,21 +359,25 @@ func (g *geom) compareX(a, b *xrule, prec uint) float64 {
 				xi[k].Sub(xi[k], cc[k])
 			}
 			w := x.wts[i]
-			s[0].Add(s[0], w)
+			s[0].add(w)
 			m := 1
 			for k := 0; k < g.dim; k++ {
-				s[m].Add(s[m], t.Mul(w, xi[k]))
+				s[m].add(t.Mul(w, xi[k]))
 				m++
 			}
 			for k := 0; k < g.dim; k++ {
 				wx.Mul(w, xi[k])
 				for j := k; j < g.dim; j++ {
-					s[m].Add(s[m], t.Mul(wx, xi[j]))
+					s[m].add(t.Mul(wx, xi[j]))
 					m++
 				}
 			}
 		}
-		return s
+		out := make([]*big.Float, len(s))
+		for i := range s {
+			out[i] = s[i].s
+		}
+		return out
 	}
 	sa, sb := sum(a), sum(b)
 	if len(a.nodes) == 0 || len(b.nodes) == 0 || sb[0].Sign() == 0 {
@@ -387,6 +391,20 @@ func (g *geom) compareX(a, b *xrule, prec uint) float64 {
 		e = math.Max(e, math.Abs(f))
 	}
 	return e
+}
+
+// bigSum is a running sum at a fixed precision. Its additions never have
+// the receiver among their operands: math/big then shifts into the
+// receiver's own storage instead of a new copy each time.
+type bigSum struct{ s, t *big.Float }
+
+func newBigSum(prec uint) bigSum {
+	return bigSum{new(big.Float).SetPrec(prec), new(big.Float).SetPrec(prec)}
+}
+
+func (a *bigSum) add(x *big.Float) {
+	a.t.Add(a.s, x)
+	a.s, a.t = a.t, a.s
 }
 
 // CheckBoxText refuses, when digits > 0, a --box bound whose decimal text
