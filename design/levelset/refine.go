@@ -66,6 +66,7 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 	// values, by pointer, in both replays): each is printed once.
 	printed := map[[2]*big.Float]string{}
 	chk := newPrintCheck(g, r, p2, unit)
+	printedX := &xrule{} // the printed rule read back, for the estimated error
 	for i := 0; i < n; i++ {
 		for k := 0; k < g.dim; k++ {
 			xf, _ := b.nodes[i][k].Float64()
@@ -91,14 +92,25 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 		}
 		r.Weights[i], _ = b.wts[i].Float64()
 		r.PrintedWeights[i] = sb
-		if err := chk.node(r.PrintedNodes[i]); err != nil {
+		pn, err := chk.node(r.PrintedNodes[i])
+		if err != nil {
 			return err
 		}
+		pw, _, err := big.ParseFloat(sb, 10, p2, big.ToNearestEven)
+		if err != nil {
+			panic("levelset: a printed weight does not read back: " + sb)
+		}
+		printedX.nodes, printedX.wts = append(printedX.nodes, pn), append(printedX.wts, pw)
 	}
-	// The estimated error against the rule of order Q+4: the float64 one
-	// of Build where it is well above float64 rounding, else both rules
-	// at p1 (which costs more than the rule itself).
-	if !(r.EstimatedError >= float64EstimateFloor) {
+	// The estimated error of the printed rule against the rule of order
+	// Q+4: where the float64 one of Build is well above float64 rounding,
+	// it plus the printed rule's difference from the unrounded one (the
+	// triangle inequality; the second term matters at few digits), else
+	// the printed rule against the Q+4 rule replayed at p1 (which costs
+	// more than the rule itself). Either way audit finds about the same.
+	if r.EstimatedError >= float64EstimateFloor {
+		r.EstimatedError += g.compareX(printedX, b, p2)
+	} else {
 		tq, err := record(g, r.Side, r.Order+4)
 		if err != nil {
 			return err
@@ -107,7 +119,7 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 		if err != nil {
 			return err
 		}
-		r.EstimatedError = g.compareX(a, hi, p1)
+		r.EstimatedError = g.compareX(printedX, hi, p1)
 	}
 	m := new(big.Float).SetPrec(p2)
 	for _, w := range b.wts {
@@ -266,10 +278,11 @@ func newPrintCheck(g *geom, r *Rule, prec uint, unit float64) *printCheck {
 		x: make([]*big.Float, g.dim), n: new(big.Float).SetPrec(prec), t: new(big.Float).SetPrec(prec)}
 }
 
-// node tests one printed node: strictly on the side asked, or for the
+// node tests one printed node and returns it read back: strictly on the side asked, or for the
 // surface within 10 units of the last printed place, times the gradient,
 // of the interface.
-func (c *printCheck) node(node []string) error {
+func (c *printCheck) node(node []string) (xpoint, error) {
+	var p xpoint
 	for k, s := range node {
 		v, ok := c.read[s]
 		if !ok {
@@ -280,6 +293,7 @@ func (c *printCheck) node(node []string) error {
 			c.read[s] = v
 		}
 		c.x[k] = v
+		p[k] = v
 	}
 	var tg [][]*big.Float
 	if c.r.Side == Surface {
@@ -287,7 +301,7 @@ func (c *printCheck) node(node []string) error {
 	}
 	v, gr, err := c.phi.Eval(c.x, tg)
 	if err != nil {
-		return fmt.Errorf("level set %q: undefined at the node (%s)", c.r.LevelSet, joinCoords(node))
+		return p, fmt.Errorf("level set %q: undefined at the node (%s)", c.r.LevelSet, joinCoords(node))
 	}
 	ok := false
 	switch c.r.Side {
@@ -305,9 +319,9 @@ func (c *printCheck) node(node []string) error {
 		ok = c.t.Abs(v).Cmp(c.n) <= 0
 	}
 	if !ok {
-		return fmt.Errorf("level set %q: the printed node (%s) is not on the %s side to %d digits; the rule is refused", c.r.LevelSet, joinCoords(node), c.r.Side, c.r.Digits)
+		return p, fmt.Errorf("level set %q: the printed node (%s) is not on the %s side to %d digits; the rule is refused", c.r.LevelSet, joinCoords(node), c.r.Side, c.r.Digits)
 	}
-	return nil
+	return p, nil
 }
 
 func joinCoords(s []string) string {
