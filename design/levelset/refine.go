@@ -22,13 +22,18 @@ const MaxDigits = 100
 // precision and prints Request.Digits digits. The float64 plan of the
 // rule, and that of order Q+4 for the estimated error, are recorded
 // (tape.go) and replayed (extended.go) at two working precisions p1 =
-// precision.WorkingPrec(D, Q) and p2 = p1 + 64, each with its own
-// Gauss-Legendre rule from design.Gauss (D+12 and D+32 digits). Every
+// precision.WorkingPrec(D+E, Q) and p2 = p1 + 64, each with its own
+// Gauss-Legendre rule from design.Gauss (D+E+12 and D+E+32 digits). Every
 // printed value must be the same from both, else the rule is refused.
-// Weights print D significant digits; node coordinates D digits relative
-// to the element's size (the largest side of its bounding box), so that
-// a coordinate within 10^-D of that size from 0 prints as 0 instead of
-// digits of rounding noise. Each printed node is then read back and must
+// Weights and node coordinates print D significant digits, as the
+// contract asks; since the roots and nodes are accurate to the working
+// precision relative to the element's size (the largest side of its
+// bounding box), E (0 to D) is the number of decimal orders by which the
+// smallest nonzero coordinate of the float64 rule lies below that size.
+// A coordinate within half a unit of the D-th digit of the size from 0
+// (a zero by symmetry, such as the middle node of an odd order on a
+// centred piece) prints as 0 instead of digits of rounding noise. Each
+// printed node is then read back and must
 // lie strictly on the side asked (surface: within 10 units of the last
 // printed place, times the gradient, of the interface), at p2 bits.
 func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
@@ -40,7 +45,8 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 	for k := 0; k < g.dim; k++ {
 		size = math.Max(size, g.hi[k]-g.lo[k])
 	}
-	p1 := precision.WorkingPrec(d, r.Order)
+	e := smallCoordDigits(r.Nodes, size, d)
+	p1 := precision.WorkingPrec(d+e, r.Order)
 	p2 := p1 + 64
 	tp, err := record(g, r.Side, r.Order)
 	if err != nil {
@@ -48,7 +54,7 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 	}
 	runs := [2]*xrule{}
 	for i, p := range []uint{p1, p2} {
-		x, err := replayRule(ctx, g, tp, r.Order, p, d+12+20*i, size, wexpr)
+		x, err := replayRule(ctx, g, tp, r.Order, p, d+e+12+20*i, size, wexpr)
 		if err != nil {
 			return err
 		}
@@ -115,7 +121,7 @@ func refine(ctx context.Context, g *geom, r *Rule, wexpr *moments.Expr) error {
 		if err != nil {
 			return err
 		}
-		hi, err := replayRule(ctx, g, tq, r.Order+4, p1, d+12, size, wexpr)
+		hi, err := replayRule(ctx, g, tq, r.Order+4, p1, d+e+12, size, wexpr)
 		if err != nil {
 			return err
 		}
@@ -243,19 +249,30 @@ type glKey struct {
 	prec      uint
 }
 
-// printCoord prints the coordinate v with digits relative to the
-// element's size: unit is one unit in the last place (10^(1-d) times the
-// size's power of ten), xf the float64 value deciding how many
-// significant digits that makes, so that both precisions' strings are cut
-// at the same place.
+// smallCoordDigits is E of refine: the decimal orders, 0 to d, by which
+// the smallest nonzero |coordinate| of the float64 nodes lies below size.
+func smallCoordDigits(nodes [][]float64, size float64, d int) int {
+	m := 1.0
+	for _, p := range nodes {
+		for _, c := range p {
+			if a := math.Abs(c) / size; a > 0 && a < m {
+				m = a
+			}
+		}
+	}
+	return min(d, int(math.Ceil(-math.Log10(m))))
+}
+
+// printCoord prints the coordinate v with d significant digits, or 0
+// where it lies within half a unit of the d-th digit of the element's
+// size from 0 (unit is that unit, 10^(1-d) times the size's power of
+// ten); xf, the float64 value of the more precise run, makes that choice
+// for both runs' strings.
 func printCoord(v *big.Float, xf, unit float64, d int) string {
-	ax := math.Abs(xf)
-	if ax < unit/2 {
+	if math.Abs(xf) < unit/2 {
 		return "0"
 	}
-	sig := int(math.Floor(math.Log10(ax))-math.Log10(unit)) + 1
-	sig = max(1, min(sig, d))
-	return precision.FormatSig(v, sig)
+	return precision.FormatSig(v, d)
 }
 
 // printCheck reads printed nodes back and tests their side at prec bits
