@@ -83,6 +83,9 @@ func AuditRule(ctx context.Context, req Request, nodes [][]string, weights []str
 			a.NodesOutside++
 		}
 	}
+	if sum == 0 {
+		return nil, errZeroSum
+	}
 	a.Measure = sum
 	a.StabilityFactor = abs / math.Abs(sum)
 	a.LostDigits = math.Log10(a.StabilityFactor)

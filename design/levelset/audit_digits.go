@@ -52,6 +52,9 @@ func fileDigits(nodes [][]string, weights []string) (int, [][]*big.Rat, []*big.R
 // compares the rule read with the float64 plan of order+4 replayed at that
 // precision (Gauss-Legendre rules of D+12 digits), as refine does.
 func auditDigits(ctx context.Context, g *geom, req Request, d int, xs [][]*big.Rat, ws []*big.Rat) (*Audit, error) {
+	if d > precision.MaxDigits {
+		return nil, fmt.Errorf("a value carries %d significant digits, more than the %d an audit reads", d, precision.MaxDigits)
+	}
 	prec := precision.DigitsToBits(d) + 64
 	a := &Audit{Points: len(xs), Degree: -1, Order: req.Order, Digits: d}
 	size := 0.0
@@ -109,6 +112,9 @@ func auditDigits(ctx context.Context, g *geom, req Request, d int, xs [][]*big.R
 			a.NodesOutside++
 		}
 	}
+	if sum.s.Sign() == 0 {
+		return nil, errZeroSum
+	}
 	a.Measure, _ = sum.s.Float64()
 	sf := new(big.Float).SetPrec(prec).Quo(abs.s, t.Abs(sum.s))
 	a.StabilityFactor, _ = sf.Float64()
@@ -141,6 +147,10 @@ func auditDigits(ctx context.Context, g *geom, req Request, d int, xs [][]*big.R
 	a.Note = fmt.Sprintf("checked at %d digits (%d bits), the most significant digits of the file's values", d, prec)
 	return a, nil
 }
+
+// errZeroSum refuses a rule whose weights sum to zero: it has no measure
+// and no stability factor.
+var errZeroSum = fmt.Errorf("the weights sum to 0, so the rule has no measure to audit")
 
 // inElement reports whether the point x (exact) lies in the closed
 // element.
