@@ -77,6 +77,9 @@ func (a bigS) exact(n *node) bigS {
 	case opE:
 		return bigS{x: precision.ExpTo(new(big.Float).SetPrec(a.p).SetInt64(1), a.p), p: a.p}
 	}
+	if n.rat == nil {
+		return bigS{x: a.mk().SetFloat64(n.f), p: a.p} // evalDual's own constant 1 of a^0
+	}
 	return bigS{x: a.mk().SetRat(n.rat), p: a.p}
 }
 

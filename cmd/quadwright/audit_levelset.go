@@ -50,6 +50,11 @@ func runLevelSetAudit(ctx context.Context, o *auditOptions, path, format string,
 		fmt.Fprintf(w, "nodes outside:    %d (off the element or not on the %s side)\n", rep.NodesOutside, req.Side)
 		fmt.Fprintf(w, "measure:          %.17g\n", rep.Measure)
 		fmt.Fprintf(w, "estimated error:  %.2e against a fresh rule of order %d\n", rep.EstimatedError, rep.Order+4)
+		if rep.Digits > 17 {
+			fmt.Fprintf(w, "digits:           %d (every check at this precision)\n", rep.Digits)
+		} else {
+			fmt.Fprintf(w, "digits:           %d (checked in float64)\n", rep.Digits)
+		}
 		return nil
 	})
 	if err != nil {

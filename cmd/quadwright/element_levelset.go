@@ -19,7 +19,7 @@ type levelSetOptions struct {
 }
 
 func addLevelSetFlags(f *pflag.FlagSet, o *levelSetOptions) {
-	f.StringVar(&o.levelSet, "level-set", "", "level-set function of x, y[, z]: the rule is for the part of the element where it is < 0 (--side inside), > 0 (outside), or for the surface where it vanishes (surface); --degree is then the order of the one-dimensional Gauss-Legendre rules; with --digits D (1 to 100) the rule is recomputed at extended precision, weights to D significant digits, coordinates to D digits of the element's size")
+	f.StringVar(&o.levelSet, "level-set", "", "level-set function of x, y[, z]: the rule is for the part of the element where it is < 0 (--side inside), > 0 (outside), or for the surface where it vanishes (surface); --degree is then the order of the one-dimensional Gauss-Legendre rules; with --digits D (1 to 100) the rule is recomputed at extended precision and every weight and coordinate prints D significant digits (a coordinate within half a unit of the D-th digit of the element's size from 0 prints as 0)")
 	f.StringVar(&o.side, "side", "inside", "with --level-set: inside (level set < 0), outside (> 0) or surface (= 0, with its area or length measure)")
 	f.StringVar(&o.box, "box", "", "with --level-set: a rectangle A,B,C,D ([A,B] x [C,D]) or box A,B,C,D,E,F instead of --shape")
 }
@@ -126,7 +126,7 @@ func writeLevelSetRule(w *strings.Builder, r *levelset.Rule, format string) erro
 		fmt.Fprintf(w, "# measure:  %.17g\n", r.Measure)
 		fmt.Fprintf(w, "# estimated error: %.2e (%s)\n", r.EstimatedError, rulefile.ErrorTestText)
 		if r.Digits > 0 {
-			fmt.Fprintf(w, "# digits:   %d (weights significant; coordinates to %d digits of the element's size), every one confirmed by two working precisions\n", r.Digits, r.Digits)
+			fmt.Fprintf(w, "# digits:   %d significant (a coordinate within half a unit of the %d-th digit of the element's size from 0 prints as 0), every one confirmed by two working precisions\n", r.Digits, r.Digits)
 		} else {
 			fmt.Fprintf(w, "# digits:   float64 (shortest round-trip form)\n")
 		}

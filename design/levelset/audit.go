@@ -20,12 +20,18 @@ type Audit struct {
 	// EstimatedError compares the rule read with the rule of order+4
 	// built afresh on the same domain (see Rule.EstimatedError).
 	EstimatedError float64 `json:"estimated_error"`
-	Note           string  `json:"note,omitempty"`
+	// Digits is D, the most significant digits among the file's values;
+	// above 17 every check runs at that precision (auditDigits), else in
+	// float64.
+	Digits int    `json:"digits"`
+	Note   string `json:"note,omitempty"`
 }
 
 // AuditRule checks the rule (nodes, weights as decimal strings) on the
 // domain of req: positivity, nodes on the side and inside the element,
-// and the estimated error against a fresh rule of order req.Order+4.
+// and the estimated error against a fresh rule of order req.Order+4. A
+// rule printed with more than 17 significant digits is checked at its
+// own digits (auditDigits); otherwise in float64.
 func AuditRule(ctx context.Context, req Request, nodes [][]string, weights []string) (*Audit, error) {
 	g, err := geometry(req, nil)
 	if err != nil {
@@ -34,7 +40,25 @@ func AuditRule(ctx context.Context, req Request, nodes [][]string, weights []str
 	if g.phi, err = ParseLevelSet(req.LevelSet, g.dim); err != nil {
 		return nil, err
 	}
-	a := &Audit{Points: len(nodes), Degree: -1, Order: req.Order}
+	if len(nodes) != len(weights) {
+		return nil, fmt.Errorf("%d nodes and %d weights", len(nodes), len(weights))
+	}
+	for i, n := range nodes {
+		if len(n) != g.dim {
+			return nil, fmt.Errorf("node %d has %d coordinates, the domain %d", i+1, len(n), g.dim)
+		}
+	}
+	if req.Order < 1 || req.Order > MaxOrder {
+		return nil, fmt.Errorf("order %d: out of range 1 to %d", req.Order, MaxOrder)
+	}
+	d, xs, rs, err := fileDigits(nodes, weights)
+	if err != nil {
+		return nil, err
+	}
+	if d > float64Digits {
+		return auditDigits(ctx, g, req, d, xs, rs)
+	}
+	a := &Audit{Points: len(nodes), Degree: -1, Order: req.Order, Digits: d}
 	pts := make([][3]float64, len(nodes))
 	ws := make([]float64, len(nodes))
 	sum, abs := 0.0, 0.0
@@ -58,6 +82,9 @@ func AuditRule(ctx context.Context, req Request, nodes [][]string, weights []str
 		if !g.holds(pts[i], req.Side) {
 			a.NodesOutside++
 		}
+	}
+	if sum == 0 {
+		return nil, errZeroSum
 	}
 	a.Measure = sum
 	a.StabilityFactor = abs / math.Abs(sum)

@@ -18,9 +18,14 @@
 // design/fast in float64). With Request.Digits the float64 plan (boxes,
 // height directions, which roots cut each line and which pieces are kept)
 // is recorded and replayed at two extended working precisions: the roots
-// by bracketed Newton steps on moments.Expr.GradBig, the Gauss-Legendre
-// rules from design.Gauss; every printed digit must agree between the
-// two (refine.go, extended.go, tape.go). Triangles and
+// by Newton steps from the float64 root, kept inside its float64 bracket
+// (whose ends' signs are confirmed), on phi compiled to a
+// moments.GradTape (value and directional derivative in reused storage);
+// the Gauss-Legendre rules from design.Gauss, cached by order and
+// precision; every printed digit must agree between the two (refine.go,
+// extended.go, tape.go). Every weight and coordinate prints D significant
+// digits. A rule file of more than 17 digits is audited at its own digits
+// (audit_digits.go). Triangles and
 // tetrahedra are reached from the unit square and cube through the
 // collapsed (Duffy) map, its Jacobian folded into the weights.
 //

@@ -3,6 +3,8 @@ package levelset
 import (
 	"fmt"
 	"math/big"
+
+	"quadwright/moments"
 )
 
 // xpoint is a point of the computational box at extended precision; a
@@ -16,7 +18,10 @@ type xemitter func(u xpoint, w *big.Float)
 // replay walks a float64 run's tape (tape.go) at prec bits: the same
 // boxes, directions, cuts and pieces, with the roots found again at prec
 // bits from their float64 brackets and the Gauss-Legendre rules gx, gw
-// (on [-1, 1], accurate to prec bits) on every piece.
+// (on [-1, 1], accurate to prec bits) on every piece. phi is evaluated by
+// a compiled tape (moments.GradTape) into storage the replay reuses; the
+// values it emits are new and never changed afterwards, so the points of
+// a line share their fixed coordinates.
 type replay struct {
 	g      *geom
 	prec   uint
@@ -27,6 +32,31 @@ type replay struct {
 	// tol is the absolute accuracy of a root: 2^-(prec-8) of the
 	// element's size.
 	tol *big.Float
+	phi *moments.GradTape
+	s   scratch
+}
+
+// scratch is the reused storage of a replay's evaluations and root
+// searches.
+type scratch struct {
+	fix, x, dir [3]*big.Float
+	lo, hi, nt  *big.Float
+	step, width *big.Float
+	lim, one    *big.Float
+	tan         [][]*big.Float
+}
+
+func newReplay(g *geom, prec uint, gx, gw []*big.Float, ev []event, size float64) *replay {
+	r := &replay{g: g, prec: prec, gx: gx, gw: gw, ev: ev, phi: g.phi.CompileGrad(prec)}
+	r.tol = r.f(size)
+	r.tol.SetMantExp(r.tol, -int(prec)+8)
+	s := &r.s
+	for i := range s.fix {
+		s.fix[i], s.x[i], s.dir[i] = r.f(0), r.f(0), r.f(0)
+	}
+	s.lo, s.hi, s.nt, s.step, s.width, s.lim, s.one = r.f(0), r.f(0), r.f(0), r.f(0), r.f(0), r.f(0), r.f(1)
+	s.tan = [][]*big.Float{s.dir[:g.dim]}
+	return r
 }
 
 func (r *replay) f(v float64) *big.Float { return new(big.Float).SetPrec(r.prec).SetFloat64(v) }
@@ -72,6 +102,17 @@ func (r *replay) integrate(emit xemitter) {
 }
 
 func (r *replay) tensor(free []int, b [3]span, emit xemitter) {
+	// The coordinates and weight factors of each free direction, made
+	// once and shared by every point of the product.
+	var cs, ws [3][]*big.Float
+	for _, i := range free {
+		h, c := r.half(r.f(b[i].Lo), r.f(b[i].Hi))
+		for t := range r.gx {
+			v := r.mul(h, r.gx[t])
+			cs[i] = append(cs[i], v.Add(v, c))
+			ws[i] = append(ws[i], r.mul(h, r.gw[t]))
+		}
+	}
 	var rec func(j int, u xpoint, w *big.Float)
 	rec = func(j int, u xpoint, w *big.Float) {
 		if j == len(free) {
@@ -79,15 +120,17 @@ func (r *replay) tensor(free []int, b [3]span, emit xemitter) {
 			return
 		}
 		i := free[j]
-		h, c := r.half(r.f(b[i].Lo), r.f(b[i].Hi))
 		for t := range r.gx {
 			v := u
-			v[i] = r.mul(h, r.gx[t])
-			v[i].Add(v[i], c)
-			rec(j+1, v, r.mul(r.mul(w, h), r.gw[t]))
+			v[i] = cs[i][t]
+			if w == nil {
+				rec(j+1, v, new(big.Float).SetPrec(r.prec).Set(ws[i][t]))
+			} else {
+				rec(j+1, v, r.mul(w, ws[i][t]))
+			}
 		}
 	}
-	rec(0, xpoint{}, r.f(1))
+	rec(0, xpoint{}, nil)
 }
 
 // half returns (t1-t0)/2 and (t1+t0)/2 rounded to prec.
@@ -99,7 +142,8 @@ func (r *replay) half(t0, t1 *big.Float) (h, m *big.Float) {
 
 func (r *replay) mul(a, b *big.Float) *big.Float { return new(big.Float).SetPrec(r.prec).Mul(a, b) }
 
-// line replays one line through u with weight w.
+// line replays one line through u with weight w. The points it emits get
+// new weights (an emitter may keep them); w itself is only read.
 func (r *replay) line(u xpoint, w *big.Float, emit xemitter) {
 	if r.err != nil {
 		return
@@ -107,7 +151,8 @@ func (r *replay) line(u xpoint, w *big.Float, emit xemitter) {
 	e := r.next(evLine)
 	k := e.k
 	ts := make([]*big.Float, len(e.cuts))
-	for j, c := range e.cuts {
+	for j := range e.cuts {
+		c := &e.cuts[j]
 		if c.end {
 			ts[j] = r.f(c.t)
 			continue
@@ -123,22 +168,12 @@ func (r *replay) line(u xpoint, w *big.Float, emit xemitter) {
 		for j, t := range ts {
 			q := u
 			q[k] = t
-			_, gu, gx, err := r.g.evalX(e.cuts[j].f.atX(q, e.free, r.prec), r.prec)
+			wt, err := r.areaElement(&e.cuts[j].f, e.free, q, k)
 			if err != nil {
 				r.fail(err)
 				return
 			}
-			n := new(big.Float).SetPrec(r.prec)
-			for i := 0; i < r.g.dim; i++ {
-				n.Add(n, r.mul(gx[i], gx[i]))
-			}
-			n.Sqrt(n)
-			if gu[k].Sign() == 0 {
-				r.fail(fmt.Errorf("level set: its derivative along a height direction vanished at a root at %d bits", r.prec))
-				return
-			}
-			n.Quo(n, new(big.Float).Abs(gu[k]))
-			emit(q, r.mul(w, n))
+			emit(q, wt.Mul(wt, w))
 		}
 		return
 	}
@@ -148,7 +183,7 @@ func (r *replay) line(u xpoint, w *big.Float, emit xemitter) {
 			return
 		}
 		h, m := r.half(ts[j], ts[j+1])
-		hw := r.mul(w, h)
+		hw := r.mul(h, w)
 		for t := range r.gx {
 			q := u
 			q[k] = r.mul(h, r.gx[t])
@@ -158,79 +193,173 @@ func (r *replay) line(u xpoint, w *big.Float, emit xemitter) {
 	}
 }
 
-// atX fills the fixed coordinates of f into the point u of the free ones.
-func (f *fn) atX(u xpoint, free []int, prec uint) xpoint {
+// areaElement is |grad phi| / |d phi / du_k| at the root q of the
+// interface on a line in direction k (a new value).
+func (r *replay) areaElement(f *fn, free []int, q xpoint, k int) (*big.Float, error) {
+	full, x := r.point(f, free, q)
+	_, gx, err := r.phi.Eval(x, r.phi.Unit())
+	if err != nil {
+		return nil, err
+	}
+	n := new(big.Float).SetPrec(r.prec)
+	du := r.s.lim.SetInt64(0)
+	r.tangent(full, k)
+	for i := 0; i < r.g.dim; i++ {
+		r.s.step.Mul(gx[i], gx[i])
+		n.Add(n, r.s.step)
+		r.s.step.Mul(gx[i], r.s.dir[i])
+		du.Add(du, r.s.step)
+	}
+	n.Sqrt(n)
+	if du.Sign() == 0 {
+		return nil, fmt.Errorf("level set: its derivative along a height direction vanished at a root at %d bits", r.prec)
+	}
+	return n.Quo(n, du.Abs(du)), nil
+}
+
+// point sets the scratch point for the function f of a level: the fixed
+// coordinates of f, then those of u among free (u's nil ones unset), and
+// returns it (full) and its image x on the element. Both are scratch
+// storage or u's own values, valid until the next call.
+func (r *replay) point(f *fn, free []int, u xpoint) (full xpoint, x []*big.Float) {
 	var q xpoint
-	for i := range q {
-		q[i] = new(big.Float).SetPrec(prec).SetFloat64(f.fix[i])
+	for i := 0; i < r.g.dim; i++ {
+		q[i] = r.s.fix[i].SetFloat64(f.fix[i])
 	}
 	for _, i := range free {
 		if u[i] != nil {
 			q[i] = u[i]
 		}
 	}
-	return q
+	xs := r.s.x
+	switch r.g.kind {
+	case duffyTri:
+		x := xs
+		x[0].Set(q[0])
+		x[1].Sub(r.s.one, q[0])
+		x[1].Mul(x[1], q[1])
+	case duffyTet:
+		x := xs
+		x[0].Set(q[0])
+		x[1].Sub(r.s.one, q[0])
+		x[2].Sub(r.s.one, q[1])
+		x[2].Mul(x[2], x[1])
+		x[2].Mul(x[2], q[2])
+		x[1].Mul(x[1], q[1])
+	default:
+		return q, q[:r.g.dim]
+	}
+	return q, xs[:r.g.dim]
+}
+
+// tangent sets r.s.dir to dx/du_k at u, the image in x of the direction
+// k of the computational box.
+func (r *replay) tangent(u xpoint, k int) {
+	d := r.s.dir
+	for i := 0; i < r.g.dim; i++ {
+		d[i].SetInt64(0)
+	}
+	om := func(i int) *big.Float { return r.s.width.Sub(r.s.one, u[i]) }
+	switch r.g.kind {
+	case duffyTri: // x = (u0, u1 (1-u0))
+		if k == 0 {
+			d[0].SetInt64(1)
+			d[1].Neg(u[1])
+		} else {
+			d[1].Set(om(0))
+		}
+	case duffyTet: // x = (u0, u1 (1-u0), u2 (1-u0) (1-u1))
+		switch k {
+		case 0:
+			d[0].SetInt64(1)
+			d[1].Neg(u[1])
+			d[2].Neg(u[2])
+			d[2].Mul(d[2], om(1))
+		case 1:
+			d[1].Set(om(0))
+			d[2].Neg(u[2])
+			d[2].Mul(d[2], om(0))
+		default:
+			d[2].Set(om(0))
+			d[2].Mul(d[2], om(1))
+		}
+	default:
+		d[k].SetInt64(1)
+	}
+}
+
+// eval is phi at the point u of the line (its coordinate k set to t) and,
+// with deriv, its derivative along k there; both scratch storage of the
+// tape.
+func (r *replay) eval(f *fn, free []int, u xpoint, k int, t *big.Float, deriv bool) (v, d *big.Float, err error) {
+	u[k] = t
+	full, x := r.point(f, free, u)
+	if !deriv {
+		v, _, err = r.phi.Eval(x, nil)
+		return v, nil, err
+	}
+	r.tangent(full, k)
+	v, ds, err := r.phi.Eval(x, r.s.tan)
+	if err != nil {
+		return nil, nil, err
+	}
+	return v, ds[0], nil
 }
 
 // root finds the cut c again at prec bits along direction k through u: an
 // end of the segment stays where it is (the function must vanish there to
 // prec bits); a root is found in its float64 bracket by Newton's method
-// safeguarded by bisection, to within r.tol. A bracket whose ends do not
-// have opposite signs at prec bits is an error: the float64 plan does not
-// hold there.
-func (r *replay) root(c cut, k int, free []int, u xpoint) (*big.Float, error) {
-	val := func(t *big.Float) (*big.Float, *big.Float, error) {
-		q := u
-		q[k] = t
-		v, gu, _, err := r.g.evalX(c.f.atX(q, free, r.prec), r.prec)
-		if err != nil {
-			return nil, nil, err
-		}
-		return v, gu[k], nil
-	}
+// from the float64 root, safeguarded by bisection, to within r.tol (from
+// a float64 start two or three steps). A bracket whose ends do not have
+// opposite signs at prec bits is an error: the float64 plan does not hold
+// there.
+func (r *replay) root(c *cut, k int, free []int, u xpoint) (*big.Float, error) {
 	notHeld := fmt.Errorf("level set: a root along a line lies within float64 rounding of a segment's end, where the float64 plan cannot be confirmed at %d bits; try another --degree or element", r.prec)
+	s := &r.s
 	if c.lo == c.hi {
 		t := r.f(c.lo)
-		v, d, err := val(t)
+		v, d, err := r.eval(&c.f, free, u, k, t, true)
 		if err != nil {
 			return nil, err
 		}
 		// |v| within a few ulps of prec of |d| times the element's size.
-		lim := new(big.Float).SetPrec(r.prec).Abs(d)
-		lim.Mul(lim, r.tol)
-		lim.SetMantExp(lim, 4)
-		if v.Sign() != 0 && new(big.Float).Abs(v).Cmp(lim) > 0 && d.Sign() != 0 {
+		s.lim.Abs(d)
+		s.lim.Mul(s.lim, r.tol)
+		s.lim.SetMantExp(s.lim, 4)
+		if v.Sign() != 0 && d.Sign() != 0 && s.step.Abs(v).Cmp(s.lim) > 0 {
 			return nil, notHeld
 		}
 		return t, nil
 	}
-	lo, hi := r.f(c.lo), r.f(c.hi)
-	vl, _, err := val(lo)
+	lo, hi := s.lo.SetFloat64(c.lo), s.hi.SetFloat64(c.hi)
+	v, _, err := r.eval(&c.f, free, u, k, lo, false)
 	if err != nil {
 		return nil, err
 	}
-	vh, _, err := val(hi)
+	sl := v.Sign()
+	v, _, err = r.eval(&c.f, free, u, k, hi, false)
 	if err != nil {
 		return nil, err
 	}
+	sh := v.Sign()
 	switch {
-	case vl.Sign() == 0:
-		return lo, nil
-	case vh.Sign() == 0:
-		return hi, nil
-	case vl.Sign() == vh.Sign():
+	case sl == 0:
+		return r.f(c.lo), nil
+	case sh == 0:
+		return r.f(c.hi), nil
+	case sl == sh:
 		return nil, notHeld
 	}
-	if vl.Sign() > 0 {
+	if sl > 0 {
 		lo, hi = hi, lo // keep h(lo) < 0 < h(hi)
 	}
 	t := r.f(c.t)
 	if !strictlyBetween(t, lo, hi) {
-		_, t = r.half(lo, hi)
+		r.mid(t, lo, hi)
 	}
-	step := new(big.Float).SetPrec(r.prec)
+	nt := s.nt
 	for it := 0; it < 400; it++ {
-		v, d, err := val(t)
+		v, d, err := r.eval(&c.f, free, u, k, t, true)
 		if err != nil {
 			return nil, err
 		}
@@ -238,26 +367,32 @@ func (r *replay) root(c cut, k int, free []int, u xpoint) (*big.Float, error) {
 			return t, nil
 		}
 		if v.Sign() < 0 {
-			lo = t
+			lo.Set(t)
 		} else {
-			hi = t
+			hi.Set(t)
 		}
-		var nt *big.Float
 		if d.Sign() != 0 {
-			step.Quo(v, d)
-			nt = new(big.Float).SetPrec(r.prec).Sub(t, step)
+			s.step.Quo(v, d)
+			nt.Sub(t, s.step)
 		}
-		if nt == nil || !strictlyBetween(nt, lo, hi) {
-			_, nt = r.half(lo, hi)
+		if d.Sign() == 0 || !strictlyBetween(nt, lo, hi) {
+			r.mid(nt, lo, hi)
 		}
-		step.Sub(nt, t)
-		width := new(big.Float).SetPrec(r.prec).Sub(hi, lo)
-		if step.Abs(step).Cmp(r.tol) <= 0 || width.Abs(width).Cmp(r.tol) <= 0 {
-			return nt, nil
+		s.step.Sub(nt, t)
+		s.width.Sub(hi, lo)
+		done := s.step.Abs(s.step).Cmp(r.tol) <= 0 || s.width.Abs(s.width).Cmp(r.tol) <= 0
+		t.Set(nt)
+		if done {
+			return t, nil
 		}
-		t = nt
 	}
 	return nil, fmt.Errorf("level set: a root along a line did not converge at %d bits", r.prec)
+}
+
+// mid sets z to (a+b)/2 rounded to prec.
+func (r *replay) mid(z, a, b *big.Float) {
+	z.Add(a, b)
+	z.SetMantExp(z, -1)
 }
 
 // strictlyBetween reports whether t lies strictly between a and b (in
@@ -269,7 +404,8 @@ func strictlyBetween(t, a, b *big.Float) bool {
 	return t.Cmp(a) > 0 && t.Cmp(b) < 0
 }
 
-// toXBig maps u onto the element at prec bits.
+// toXBig maps u onto the element at prec bits: new values where the map
+// changes a coordinate, u's own where it does not.
 func (g *geom) toXBig(u xpoint, prec uint) xpoint {
 	one := big.NewFloat(1)
 	m := func(a, b *big.Float) *big.Float { return new(big.Float).SetPrec(prec).Mul(a, b) }
@@ -297,30 +433,4 @@ func (g *geom) jacBig(u xpoint, prec uint) *big.Float {
 		return om.Mul(om, om).Mul(om, omv)
 	}
 	return new(big.Float).SetPrec(prec).SetInt64(1)
-}
-
-// evalX returns phi(x(u)), its gradient in u and in x at prec bits
-// (moments.Expr.GradBig and the chain rule of the map, as eval).
-func (g *geom) evalX(u xpoint, prec uint) (v *big.Float, gu, gx [3]*big.Float, err error) {
-	x := g.toXBig(u, prec)
-	v, err = g.phi.GradBig(prec, x[:g.dim], gx[:g.dim])
-	if err != nil {
-		return nil, gu, gx, err
-	}
-	m := func(a, b *big.Float) *big.Float { return new(big.Float).SetPrec(prec).Mul(a, b) }
-	s := func(a, b *big.Float) *big.Float { return new(big.Float).SetPrec(prec).Sub(a, b) }
-	one := big.NewFloat(1)
-	switch g.kind {
-	case duffyTri:
-		gu[0] = s(gx[0], m(u[1], gx[1]))
-		gu[1] = m(s(one, u[0]), gx[1])
-	case duffyTet:
-		om, omv := s(one, u[0]), s(one, u[1])
-		gu[0] = s(s(gx[0], m(u[1], gx[1])), m(m(u[2], omv), gx[2]))
-		gu[1] = s(m(om, gx[1]), m(m(u[2], om), gx[2]))
-		gu[2] = m(m(om, omv), gx[2])
-	default:
-		gu = gx
-	}
-	return v, gu, gx, nil
 }
