@@ -152,10 +152,13 @@ func crossingEdges(v [][2]*big.Rat) error {
 	n := len(v)
 	for i := 0; i < n; i++ {
 		a, b, c := v[(i+n-1)%n], v[i], v[(i+1)%n]
+		if orient2(a, b, c) != 0 {
+			continue
+		}
 		u, w := sub2(a, b), sub2(c, b)
 		dot := new(big.Rat).Mul(u[0], w[0])
 		dot.Add(dot, new(big.Rat).Mul(u[1], w[1]))
-		if orient2(a, b, c) == 0 && dot.Sign() > 0 {
+		if dot.Sign() > 0 {
 			return fmt.Errorf("edges %d and %d fold back onto each other at vertex %d", (i+n-1)%n+1, i+1, i+1)
 		}
 	}
