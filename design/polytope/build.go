@@ -60,7 +60,7 @@ const Method = "collapsed rules on a simplex subdivision, Tchakaloff compression
 // cell is what Build needs of a polygon or polyhedron.
 type cell interface {
 	dimension() int
-	canonical() (canon cell, key string, sim similarity)
+	canonical() (canon func() cell, key string, sim similarity)
 	moments(deg int) []*big.Rat
 	simplices() [][][]*big.Rat
 	// framed returns the cell moved by w_k -> (w_k - c_k)/h_k into [-1,1]^dim.
@@ -124,7 +124,7 @@ func solveClass(ctx context.Context, canon cell, opt Options) (*classSolution, e
 // build makes the rule of one cell from its class's solution, solved
 // here unless cache supplies it; the mapped rule is printed, confirmed and
 // verified for this cell.
-func build(ctx context.Context, c cell, opt Options, cache func(key string, canon cell) (*classSolution, error)) (*Rule, error) {
+func build(ctx context.Context, c cell, opt Options, cache func(key string, canon func() cell) (*classSolution, error)) (*Rule, error) {
 	dim := c.dimension()
 	if err := checkOptions(dim, opt); err != nil {
 		return nil, err
@@ -135,7 +135,7 @@ func build(ctx context.Context, c cell, opt Options, cache func(key string, cano
 	if cache != nil {
 		cs, err = cache(key, canon)
 	} else {
-		cs, err = solveClass(ctx, canon, opt)
+		cs, err = solveClass(ctx, canon(), opt)
 	}
 	if err != nil {
 		return nil, fmt.Errorf("degree %d: %v", opt.Degree, err)

@@ -9,9 +9,9 @@ type polygonCell struct{ p *Polygon }
 
 func (c polygonCell) dimension() int { return 2 }
 
-func (c polygonCell) canonical() (cell, string, similarity) {
+func (c polygonCell) canonical() (func() cell, string, similarity) {
 	q, key, sim := canonicalPolygon(c.p)
-	return polygonCell{q}, key, sim
+	return func() cell { return polygonCell{q()} }, key, sim
 }
 
 func (c polygonCell) moments(deg int) []*big.Rat { return PolygonMoments(c.p, deg) }
@@ -119,9 +119,9 @@ type polyhedronCell struct{ p *Polyhedron }
 
 func (c polyhedronCell) dimension() int { return 3 }
 
-func (c polyhedronCell) canonical() (cell, string, similarity) {
+func (c polyhedronCell) canonical() (func() cell, string, similarity) {
 	q, key, sim := canonicalPolyhedron(c.p)
-	return polyhedronCell{q}, key, sim
+	return func() cell { return polyhedronCell{q} }, key, sim
 }
 
 func (c polyhedronCell) moments(deg int) []*big.Rat { return PolyhedronMoments(c.p, deg) }

@@ -102,9 +102,21 @@ func alignDecimals(ds []decimal) ([]*big.Int, int) {
 	return out, E
 }
 
+// pow10 returns 10^n (shared for small n: the caller must not change it).
 func pow10(n int) *big.Int {
+	if n < len(smallPow10) {
+		return smallPow10[n]
+	}
 	return new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(n)), nil)
 }
+
+var smallPow10 = func() []*big.Int {
+	out := make([]*big.Int, 64)
+	for i := range out {
+		out[i] = new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(i)), nil)
+	}
+	return out
+}()
 
 // printedRule is a printed rule read exactly: coordinate k of node i is
 // c[k][i], weight i is w[i]; D is the most significant digits of any

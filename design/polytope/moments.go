@@ -13,13 +13,21 @@ type expIndex struct {
 	pos  map[[3]int]int
 }
 
+// newExpIndex returns the (shared, read-only) index of dim variables
+// through total degree deg.
 func newExpIndex(dim, deg int) *expIndex {
+	if v, ok := expIndexes.Load([2]int{dim, deg}); ok {
+		return v.(*expIndex)
+	}
 	ix := &expIndex{exps: element.Exponents(dim, deg), pos: map[[3]int]int{}}
 	for j, e := range ix.exps {
 		ix.pos[key3(e)] = j
 	}
+	expIndexes.Store([2]int{dim, deg}, ix)
 	return ix
 }
+
+var expIndexes sync.Map // [2]int{dim, deg} -> *expIndex
 
 func key3(e []int) [3]int {
 	var k [3]int

@@ -48,6 +48,9 @@ func readNumber(s, where string) (*big.Rat, error) {
 			}
 		}
 	}
+	if d, err := readDecimal(s); err == nil {
+		return d.rat(), nil // the common case, without the general reader
+	}
 	v, err := precision.ParseExact(s)
 	if err != nil {
 		return nil, fmt.Errorf("%s: %q is not a decimal number or a fraction p/q", where, s)

@@ -33,10 +33,12 @@ func onSegment(a, b, p [2]*big.Rat) bool {
 	return true
 }
 
-// segmentsMeet reports whether the closed segments ab and cd share a point.
-func segmentsMeet(a, b, c, d [2]*big.Rat) bool {
-	d1, d2 := orient2(a, b, c), orient2(a, b, d)
-	d3, d4 := orient2(c, d, a), orient2(c, d, b)
+// segmentsMeet reports whether the closed segments from vertex i to j and
+// from k to l share a point.
+func (o *outline) segmentsMeet(i, j, k, l int) bool {
+	a, b, c, d := o.v[i], o.v[j], o.v[k], o.v[l]
+	d1, d2 := o.orient(i, j, k), o.orient(i, j, l)
+	d3, d4 := o.orient(k, l, i), o.orient(k, l, j)
 	if d1*d2 < 0 && d3*d4 < 0 {
 		return true
 	}
@@ -44,62 +46,68 @@ func segmentsMeet(a, b, c, d [2]*big.Rat) bool {
 		d3 == 0 && onSegment(c, d, a) || d4 == 0 && onSegment(c, d, b)
 }
 
-// orient2 is the sign of cross2(a, b, c), decided in float64 when a
-// proven bound on the float64 value's error says the sign is right, else
-// exactly. Each coordinate converts with relative error at most u = 2^-53;
-// with X the largest magnitude among the six, each difference is then off
-// by at most 4 u X (two conversions, one rounding, to first order), each
-// product by at most 20 u X^2, the result by at most 48 u X^2: a float64
-// value larger than 64 u X^2 in magnitude has the sign of the exact one.
-// (Common practice: J. R. Shewchuk's adaptive predicates, "Adaptive
+// outline is a closed polygonal line held exactly and as the nearest
+// float64 values, for the orientation predicates.
+type outline struct {
+	v [][2]*big.Rat
+	f [][2]float64
+	// X is the largest magnitude of any float64 coordinate.
+	X float64
+}
+
+func newOutline(v [][2]*big.Rat) *outline {
+	o := &outline{v: v, f: make([][2]float64, len(v))}
+	for i := range v {
+		o.f[i][0], _ = v[i][0].Float64()
+		o.f[i][1], _ = v[i][1].Float64()
+		o.X = math.Max(o.X, math.Max(math.Abs(o.f[i][0]), math.Abs(o.f[i][1])))
+	}
+	return o
+}
+
+// orient is the sign of cross2 of the vertices i, j, k, decided in
+// float64 when a proven bound on the float64 value's error says the sign
+// is right, else exactly. Each coordinate converts with relative error at
+// most u = 2^-53; with X at least the magnitude of every coordinate, each
+// difference is then off by at most 4 u X (two conversions, one rounding,
+// to first order), each product by at most 20 u X^2, the result by at
+// most 48 u X^2: a float64 value larger than 64 u X^2 in magnitude has
+// the sign of the exact one. (Common practice: J. R. Shewchuk, "Adaptive
 // precision floating-point arithmetic and fast robust geometric
-// predicates", Discrete Comput. Geom. 18, 1997, use the same kind of
-// static filter.)
-func orient2(a, b, c [2]*big.Rat) int {
-	var f [6]float64
-	for k, r := range [6]*big.Rat{a[0], a[1], b[0], b[1], c[0], c[1]} {
-		f[k], _ = r.Float64()
-	}
-	X := 0.0
-	for _, v := range f {
-		X = math.Max(X, math.Abs(v))
-	}
-	d := (f[2]-f[0])*(f[5]-f[1]) - (f[3]-f[1])*(f[4]-f[0])
-	if bound := 64 * 0x1p-53 * X * X; !math.IsInf(bound, 0) && bound > 0x1p-1000 && math.Abs(d) > bound {
+// predicates", Discrete Comput. Geom. 18, 1997, filters the same way.)
+func (o *outline) orient(i, j, k int) int {
+	a, b, c := o.f[i], o.f[j], o.f[k]
+	d := (b[0]-a[0])*(c[1]-a[1]) - (b[1]-a[1])*(c[0]-a[0])
+	if bound := 64 * 0x1p-53 * o.X * o.X; !math.IsInf(bound, 0) && bound > 0x1p-1000 && math.Abs(d) > bound {
 		if d > 0 {
 			return 1
 		}
 		return -1
 	}
-	return cross2(a, b, c).Sign()
+	return cross2(o.v[i], o.v[j], o.v[k]).Sign()
 }
 
 // areaSign is the sign of signedArea2(v), decided in float64 when a
-// proven bound allows it (as orient2: each of the n terms x_i y_(i+1) -
+// proven bound allows it (as orient: each of the n terms x_i y_(i+1) -
 // x_(i+1) y_i is off by at most 8 u X^2, and summing n terms of magnitude
 // at most 2 X^2 adds at most 2 n^2 u X^2), else exactly.
-func areaSign(v [][2]*big.Rat) int {
-	n := len(v)
-	f := make([][2]float64, n)
-	X := 0.0
-	for i := range v {
-		f[i][0], _ = v[i][0].Float64()
-		f[i][1], _ = v[i][1].Float64()
-		X = math.Max(X, math.Max(math.Abs(f[i][0]), math.Abs(f[i][1])))
-	}
+func areaSign(v [][2]*big.Rat) int { return newOutline(v).areaSign() }
+
+func (o *outline) areaSign() int {
+	n := len(o.f)
 	s := 0.0
-	for i := range f {
+	for i := range o.f {
 		j := (i + 1) % n
-		s += f[i][0]*f[j][1] - f[j][0]*f[i][1]
+		s += o.f[i][0]*o.f[j][1] - o.f[j][0]*o.f[i][1]
 	}
 	nf := float64(n)
-	if bound := 2 * (8*nf + 2*nf*nf) * 0x1p-53 * X * X; !math.IsInf(bound, 0) && bound > 0x1p-1000 && math.Abs(s) > bound {
+	if bound := 2 * (8*nf + 2*nf*nf) * 0x1p-53 * o.X * o.X; !math.IsInf(bound, 0) && bound > 0x1p-1000 && math.Abs(s) > bound {
 		if s > 0 {
 			return 1
 		}
 		return -1
 	}
-	return signedArea2(v).Sign()
+	return signedArea2(o.v).Sign()
 }
 
 // signedArea2 is twice the signed area (positive counterclockwise).
@@ -130,16 +138,16 @@ func (p *Polygon) Validate() error {
 		}
 		seen[k] = i
 	}
+	o := newOutline(p.V)
 	for i := range p.V {
-		a, b, c := p.V[(i+n-1)%n], p.V[i], p.V[(i+1)%n]
-		if orient2(a, b, c) == 0 {
+		if o.orient((i+n-1)%n, i, (i+1)%n) == 0 {
 			return fmt.Errorf("vertex %d lies on the line through its neighbours %d and %d (a degenerate corner)", i+1, (i+n-1)%n+1, (i+1)%n+1)
 		}
 	}
-	if err := crossingEdges(p.V); err != nil {
+	if err := o.crossingEdges(); err != nil {
 		return err
 	}
-	if areaSign(p.V) == 0 {
+	if o.areaSign() == 0 {
 		return fmt.Errorf("the polygon has zero area")
 	}
 	return nil
@@ -148,11 +156,14 @@ func (p *Polygon) Validate() error {
 // crossingEdges reports the first two non-adjacent edges of the closed
 // outline v that share a point, and adjacent edges that fold back onto
 // each other.
-func crossingEdges(v [][2]*big.Rat) error {
+func crossingEdges(v [][2]*big.Rat) error { return newOutline(v).crossingEdges() }
+
+func (o *outline) crossingEdges() error {
+	v := o.v
 	n := len(v)
 	for i := 0; i < n; i++ {
 		a, b, c := v[(i+n-1)%n], v[i], v[(i+1)%n]
-		if orient2(a, b, c) != 0 {
+		if o.orient((i+n-1)%n, i, (i+1)%n) != 0 {
 			continue
 		}
 		u, w := sub2(a, b), sub2(c, b)
@@ -167,7 +178,7 @@ func crossingEdges(v [][2]*big.Rat) error {
 			if i == 0 && j == n-1 {
 				continue // adjacent through vertex 1
 			}
-			if segmentsMeet(v[i], v[(i+1)%n], v[j], v[(j+1)%n]) {
+			if o.segmentsMeet(i, (i+1)%n, j, (j+1)%n) {
 				return fmt.Errorf("edges %d (vertices %d-%d) and %d (vertices %d-%d) intersect: the polygon is not simple", i+1, i+1, (i+1)%n+1, j+1, j+1, (j+1)%n+1)
 			}
 		}
@@ -190,6 +201,7 @@ func (p *Polygon) ccw() [][2]*big.Rat {
 // earClip triangulates the counterclockwise simple polygon v (exactly)
 // by removing ears: n-2 triangles, each counterclockwise.
 func earClip(v [][2]*big.Rat) [][3][2]*big.Rat {
+	o := newOutline(v)
 	idx := make([]int, len(v))
 	for i := range idx {
 		idx[i] = i
@@ -199,17 +211,17 @@ func earClip(v [][2]*big.Rat) [][3][2]*big.Rat {
 		m := len(idx)
 		cut := false
 		for k := 0; k < m; k++ {
-			a, b, c := v[idx[(k+m-1)%m]], v[idx[k]], v[idx[(k+1)%m]]
-			if orient2(a, b, c) <= 0 {
+			ia, ib, ic := idx[(k+m-1)%m], idx[k], idx[(k+1)%m]
+			a, b, c := v[ia], v[ib], v[ic]
+			if o.orient(ia, ib, ic) <= 0 {
 				continue // reflex or straight
 			}
 			ear := true
 			for _, j := range idx {
-				q := v[j]
-				if j == idx[(k+m-1)%m] || j == idx[k] || j == idx[(k+1)%m] {
+				if j == ia || j == ib || j == ic {
 					continue
 				}
-				if orient2(a, b, q) >= 0 && orient2(b, c, q) >= 0 && orient2(c, a, q) >= 0 {
+				if o.orient(ia, ib, j) >= 0 && o.orient(ib, ic, j) >= 0 && o.orient(ic, ia, j) >= 0 {
 					ear = false
 					break
 				}
@@ -226,7 +238,7 @@ func earClip(v [][2]*big.Rat) [][3][2]*big.Rat {
 			// Only straight corners remain (collinear leftovers of earlier
 			// cuts): drop one, its triangle has zero area.
 			for k := 0; k < m; k++ {
-				if orient2(v[idx[(k+m-1)%m]], v[idx[k]], v[idx[(k+1)%m]]) == 0 {
+				if o.orient(idx[(k+m-1)%m], idx[k], idx[(k+1)%m]) == 0 {
 					idx = append(idx[:k], idx[k+1:]...)
 					cut = true
 					break
@@ -237,7 +249,7 @@ func earClip(v [][2]*big.Rat) [][3][2]*big.Rat {
 			}
 		}
 	}
-	if orient2(v[idx[0]], v[idx[1]], v[idx[2]]) != 0 {
+	if o.orient(idx[0], idx[1], idx[2]) != 0 {
 		tris = append(tris, [3][2]*big.Rat{v[idx[0]], v[idx[1]], v[idx[2]]})
 	}
 	return tris
