@@ -237,7 +237,7 @@ func (rd *printedRule) exactSums(mono []*big.Rat, maxDeg, minDigits int) element
 			}
 		}
 	}
-	exps := element.Exponents(dim, maxDeg)
+	exps := newExpIndex(dim, maxDeg).exps
 	res := element.Exactness{Degree: -1, Tested: maxDeg, Digits: D}
 	S, B, term, lhs, rhs, t := new(big.Int), new(big.Int), new(big.Int), new(big.Int), new(big.Int), new(big.Int)
 	worst := 0.0

@@ -130,53 +130,75 @@ func planFor(ix *expIndex) *convPlan {
 // vertices iv: the numerator of simplexAverages before the factor
 // a!/(|a|+m)!.
 func simplexSums(iv [][]*big.Int, ix *expIndex) []*big.Int {
-	m := len(iv) - 1
+	return newSumWork(ix, len(iv[0])).sums(iv)
+}
+
+// sumWork is the storage simplexSums reuses from one simplex to the next
+// (a polygon's edges, a polyhedron's boundary triangles): the values
+// returned by sums are overwritten by the next call.
+type sumWork struct {
+	ix        *expIndex
+	pl        *convPlan
+	pw        [][]*big.Int
+	c, g, nxt []*big.Int
+	tmp       *big.Int
+}
+
+func newSumWork(ix *expIndex, dim int) *sumWork {
 	N := len(ix.exps)
-	dim := len(iv[0])
 	deg := sum(ix.exps[N-1])
-	pl := planFor(ix)
-	pw := make([][]*big.Int, dim)
-	for i := range pw {
-		pw[i] = make([]*big.Int, deg+1)
-	}
-	// coef(v)[b] = (|b| choose b) v^b
-	coef := func(v []*big.Int) []*big.Int {
-		for i := range pw {
-			pw[i][0] = big.NewInt(1)
-			for p := 1; p <= deg; p++ {
-				pw[i][p] = new(big.Int).Mul(pw[i][p-1], v[i])
-			}
+	w := &sumWork{ix: ix, pl: planFor(ix), pw: make([][]*big.Int, dim), tmp: new(big.Int)}
+	for i := range w.pw {
+		w.pw[i] = make([]*big.Int, deg+1)
+		for p := range w.pw[i] {
+			w.pw[i][p] = new(big.Int)
 		}
+	}
+	mk := func() []*big.Int {
 		out := make([]*big.Int, N)
-		for j, b := range ix.exps {
-			t := new(big.Int).Set(pl.multi[j])
-			for i, bi := range b {
-				if bi > 0 {
-					t.Mul(t, pw[i][bi])
-				}
-			}
-			out[j] = t
+		for j := range out {
+			out[j] = new(big.Int)
 		}
 		return out
 	}
-	g := coef(iv[0])
-	tmp := new(big.Int)
-	for k := 1; k <= m; k++ {
-		c := coef(iv[k])
-		next := make([]*big.Int, N)
-		for j := range ix.exps {
-			s := new(big.Int)
-			for _, pr := range pl.pairs[j] {
-				if c[pr[0]].Sign() == 0 || g[pr[1]].Sign() == 0 {
+	w.c, w.g, w.nxt = mk(), mk(), mk()
+	return w
+}
+
+// coef sets out[b] = (|b| choose b) v^b.
+func (w *sumWork) coef(v []*big.Int, out []*big.Int) {
+	for i := range w.pw {
+		w.pw[i][0].SetInt64(1)
+		for p := 1; p < len(w.pw[i]); p++ {
+			w.pw[i][p].Mul(w.pw[i][p-1], v[i])
+		}
+	}
+	for j, b := range w.ix.exps {
+		t := out[j].Set(w.pl.multi[j])
+		for i, bi := range b {
+			if bi > 0 {
+				t.Mul(t, w.pw[i][bi])
+			}
+		}
+	}
+}
+
+func (w *sumWork) sums(iv [][]*big.Int) []*big.Int {
+	w.coef(iv[0], w.g)
+	for k := 1; k < len(iv); k++ {
+		w.coef(iv[k], w.c)
+		for j := range w.ix.exps {
+			s := w.nxt[j].SetInt64(0)
+			for _, pr := range w.pl.pairs[j] {
+				if w.c[pr[0]].Sign() == 0 || w.g[pr[1]].Sign() == 0 {
 					continue
 				}
-				s.Add(s, tmp.Mul(g[pr[1]], c[pr[0]]))
+				s.Add(s, w.tmp.Mul(w.g[pr[1]], w.c[pr[0]]))
 			}
-			next[j] = s
 		}
-		g = next
+		w.g, w.nxt = w.nxt, w.g
 	}
-	return g
+	return w.g
 }
 
 // finishMoments returns g_a a! / ((|a| + m)! (|a| + extra) L^(|a| + extra) den)
@@ -279,6 +301,7 @@ func PolygonMoments(p *Polygon, deg int) []*big.Rat {
 		acc[j] = new(big.Int)
 	}
 	c, t := new(big.Int), new(big.Int)
+	sw := newSumWork(ix, 2)
 	for i := range iv {
 		a, b := iv[i], iv[(i+1)%len(iv)]
 		c.Mul(a[0], b[1])
@@ -286,7 +309,7 @@ func PolygonMoments(p *Polygon, deg int) []*big.Rat {
 		if c.Sign() == 0 {
 			continue
 		}
-		g := simplexSums([][]*big.Int{a, b}, ix)
+		g := sw.sums([][]*big.Int{a, b})
 		for j := range acc {
 			acc[j].Add(acc[j], t.Mul(c, g[j]))
 		}
@@ -314,13 +337,14 @@ func PolyhedronMoments(p *Polyhedron, deg int) []*big.Rat {
 		acc[j] = new(big.Int)
 	}
 	t := new(big.Int)
+	sw := newSumWork(ix, 3)
 	for _, tri := range tris {
 		iv := scaleToInts([][]*big.Rat{tri[0][:], tri[1][:], tri[2][:]}, L)
 		d := detInt3(iv[0], iv[1], iv[2])
 		if d.Sign() == 0 {
 			continue
 		}
-		g := simplexSums(iv, ix)
+		g := sw.sums(iv)
 		for j := range acc {
 			acc[j].Add(acc[j], t.Mul(d, g[j]))
 		}

@@ -62,7 +62,7 @@ func readNumber(s, where string) (*big.Rat, error) {
 // surrounding space removed, with their 1-based numbers.
 func lines(r io.Reader, each func(no int, text string) error) error {
 	sc := bufio.NewScanner(r)
-	sc.Buffer(make([]byte, 64*1024), 1<<20)
+	sc.Buffer(nil, 1<<20) // grows from 4 KiB: one cell of a batch is a few lines
 	no := 0
 	for sc.Scan() {
 		no++
