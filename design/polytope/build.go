@@ -62,6 +62,8 @@ type cell interface {
 	dimension() int
 	canonical() (canon func() cell, key string, sim similarity)
 	moments(deg int) []*big.Rat
+	// momentFracs is moments as unreduced fractions num[j] / den[j].
+	momentFracs(deg int) (num, den []*big.Int)
 	simplices() [][][]*big.Rat
 	// framed returns the cell moved by w_k -> (w_k - c_k)/h_k into [-1,1]^dim.
 	framed() (cell, []*big.Rat, []*big.Rat)
@@ -202,7 +204,8 @@ func verify(ctx context.Context, c cell, r *Rule) error {
 	if base == 0 {
 		base = 17
 	}
-	ex := rd.exactSums(c.moments(r.Requested), r.Requested, base)
+	num, den := c.momentFracs(r.Requested)
+	ex := rd.exactSums(num, den, r.Requested, base)
 	if ex.Degree < r.Requested {
 		return fmt.Errorf("the printed %s rule for degree %d could not be verified: it integrates the exact moments only through degree %d", kind, r.Requested, ex.Degree)
 	}

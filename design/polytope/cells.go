@@ -16,6 +16,10 @@ func (c polygonCell) canonical() (func() cell, string, similarity) {
 
 func (c polygonCell) moments(deg int) []*big.Rat { return PolygonMoments(c.p, deg) }
 
+func (c polygonCell) momentFracs(deg int) ([]*big.Int, []*big.Int) {
+	return polygonMomentFracs(c.p, deg)
+}
+
 func (c polygonCell) simplices() [][][]*big.Rat {
 	var out [][][]*big.Rat
 	for _, t := range earClip(c.p.ccw()) {
@@ -125,6 +129,10 @@ func (c polyhedronCell) canonical() (func() cell, string, similarity) {
 }
 
 func (c polyhedronCell) moments(deg int) []*big.Rat { return PolyhedronMoments(c.p, deg) }
+
+func (c polyhedronCell) momentFracs(deg int) ([]*big.Int, []*big.Int) {
+	return polyhedronMomentFracs(c.p, deg)
+}
 
 func (c polyhedronCell) simplices() [][][]*big.Rat {
 	tets, err := c.p.tetrahedra()

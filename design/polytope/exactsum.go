@@ -211,11 +211,17 @@ func exactSums(nodes [][]string, weights []string, mono []*big.Rat, dim, maxDeg,
 	if err != nil {
 		return element.Exactness{}, err
 	}
-	return rd.exactSums(mono, maxDeg, minDigits), nil
+	num := make([]*big.Int, len(mono))
+	den := make([]*big.Int, len(mono))
+	for j, m := range mono {
+		num[j], den[j] = m.Num(), m.Denom()
+	}
+	return rd.exactSums(num, den, maxDeg, minDigits), nil
 }
 
 // exactSums is exactSums for a rule already read.
-func (rd *printedRule) exactSums(mono []*big.Rat, maxDeg, minDigits int) element.Exactness {
+// The moments are the fractions num[j] / den[j], den[j] > 0.
+func (rd *printedRule) exactSums(num, den []*big.Int, maxDeg, minDigits int) element.Exactness {
 	dim, n := len(rd.c), len(rd.w)
 	D := max(1, minDigits, rd.D)
 	coord, wd := rd.c, rd.w
@@ -268,9 +274,8 @@ func (rd *printedRule) exactSums(mono []*big.Rat, maxDeg, minDigits int) element
 			s += ak * E[k]
 			d += ak
 		}
-		I := mono[j]
-		lhs.Mul(S, I.Denom())
-		t.Set(I.Num())
+		lhs.Mul(S, den[j])
+		t.Set(num[j])
 		if s < 0 {
 			t.Mul(t, pow10(-s))
 		} else if s > 0 {
@@ -278,7 +283,7 @@ func (rd *printedRule) exactSums(mono []*big.Rat, maxDeg, minDigits int) element
 		}
 		lhs.Sub(lhs, t)
 		lhs.Abs(lhs)
-		rhs.Mul(B, I.Denom())
+		rhs.Mul(B, den[j])
 		if s > 0 {
 			rhs.Mul(rhs, pow10(s))
 		}

@@ -205,18 +205,25 @@ func (w *sumWork) sums(iv [][]*big.Int) []*big.Int {
 // for every tuple a of ix (extra = 0: no factor |a| + extra, only L^|a|):
 // the one rational division per monomial of the integer routes.
 func finishMoments(g []*big.Int, ix *expIndex, m, extra int, L, den *big.Int) []*big.Rat {
+	return reduce(fracMoments(g, ix, m, extra, L, den))
+}
+
+// fracMoments is finishMoments with each value left as an unreduced
+// fraction num[j] / den[j] (den[j] > 0), for a caller that only
+// cross-multiplies (exactSums): reducing costs a gcd per monomial.
+func fracMoments(g []*big.Int, ix *expIndex, m, extra int, L, den *big.Int) (num, dn []*big.Int) {
 	deg := sum(ix.exps[len(ix.exps)-1]) + extra
 	Lp := make([]*big.Int, deg+1)
 	Lp[0] = big.NewInt(1)
 	for p := 1; p <= deg; p++ {
 		Lp[p] = new(big.Int).Mul(Lp[p-1], L)
 	}
-	out := make([]*big.Rat, len(ix.exps))
+	num, dn = make([]*big.Int, len(ix.exps)), make([]*big.Int, len(ix.exps))
 	for j, a := range ix.exps {
-		num := new(big.Int).Set(g[j])
+		n := new(big.Int).Set(g[j])
 		for _, ai := range a {
 			if ai > 1 {
-				num.Mul(num, factorialInt(ai))
+				n.Mul(n, factorialInt(ai))
 			}
 		}
 		q := sum(a)
@@ -225,9 +232,9 @@ func finishMoments(g []*big.Int, ix *expIndex, m, extra int, L, den *big.Int) []
 			d.Mul(d, big.NewInt(int64(q+extra)))
 		}
 		d.Mul(d, den)
-		out[j] = new(big.Rat).SetFrac(num, d)
+		num[j], dn[j] = n, d
 	}
-	return out
+	return num, dn
 }
 
 // multinomials returns |b|! / (b_1! ... b_dim!) for every tuple of ix.
@@ -285,6 +292,21 @@ func forEachBelow(a []int, f func(b []int)) {
 // Comput. Mech. 56, 2015), each edge integral in closed form
 // (simplexAverages with m = 1).
 func PolygonMoments(p *Polygon, deg int) []*big.Rat {
+	num, den := polygonMomentFracs(p, deg)
+	return reduce(num, den)
+}
+
+// reduce returns the fractions num[j] / den[j] as rationals.
+func reduce(num, den []*big.Int) []*big.Rat {
+	out := make([]*big.Rat, len(num))
+	for j := range num {
+		out[j] = new(big.Rat).SetFrac(num[j], den[j])
+	}
+	return out
+}
+
+// polygonMomentFracs is PolygonMoments as unreduced fractions.
+func polygonMomentFracs(p *Polygon, deg int) (num, den []*big.Int) {
 	v := p.ccw()
 	ix := newExpIndex(2, deg)
 	pts := make([][]*big.Rat, len(v))
@@ -314,7 +336,7 @@ func PolygonMoments(p *Polygon, deg int) []*big.Rat {
 			acc[j].Add(acc[j], t.Mul(c, g[j]))
 		}
 	}
-	return finishMoments(acc, ix, 1, 2, L, big.NewInt(1))
+	return fracMoments(acc, ix, 1, 2, L, bigOne)
 }
 
 // PolyhedronMoments returns the exact integrals over p of the monomials
@@ -325,6 +347,12 @@ func PolygonMoments(p *Polygon, deg int) []*big.Rat {
 // det(a, b, c) times the average of f over T (simplexSums, m = 2), the
 // sum over the triangles in integers as for polygons.
 func PolyhedronMoments(p *Polyhedron, deg int) []*big.Rat {
+	num, den := polyhedronMomentFracs(p, deg)
+	return reduce(num, den)
+}
+
+// polyhedronMomentFracs is PolyhedronMoments as unreduced fractions.
+func polyhedronMomentFracs(p *Polyhedron, deg int) (num, den []*big.Int) {
 	ix := newExpIndex(3, deg)
 	tris := p.boundaryTriangles()
 	var pts [][]*big.Rat
@@ -349,7 +377,7 @@ func PolyhedronMoments(p *Polyhedron, deg int) []*big.Rat {
 			acc[j].Add(acc[j], t.Mul(d, g[j]))
 		}
 	}
-	return finishMoments(acc, ix, 2, 3, L, big.NewInt(1))
+	return fracMoments(acc, ix, 2, 3, L, bigOne)
 }
 
 // detInt3 is det[a, b, c] of three integer vectors.
