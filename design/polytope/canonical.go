@@ -55,7 +55,13 @@ func canonicalPolygon(p *Polygon) (func() *Polygon, string, similarity) {
 			longest = lens[k]
 		}
 	}
-	best, bestK := "", -1
+	ties := 0
+	for k := 0; k < n; k++ {
+		if lens[k].Cmp(longest) == 0 {
+			ties++
+		}
+	}
+	best, bestRat, bestK := "", "", -1
 	var bestNum []*big.Int
 	var bestDen *big.Int
 	d0, d1 := new(big.Int), new(big.Int)
@@ -89,8 +95,22 @@ func canonicalPolygon(p *Polygon) (func() *Polygon, string, similarity) {
 			sb.WriteByte(',')
 			sb.WriteString(x.String())
 		}
-		if key := sb.String(); bestK < 0 || key < best {
+		key := sb.String()
+		if ties == 1 {
 			best, bestK, bestNum, bestDen = key, k, num, den
+			break
+		}
+		// Among starts on equally long edges, the order of the forms'
+		// coordinates written as reduced rationals decides (any order
+		// that depends on the form alone would do; this one picks the
+		// start the rational route always picked).
+		var rs strings.Builder
+		for i, x := range num {
+			rs.WriteString(new(big.Rat).SetFrac(x, den).RatString())
+			rs.WriteByte(",;"[i%2])
+		}
+		if r := rs.String(); bestK < 0 || r < bestRat {
+			best, bestRat, bestK, bestNum, bestDen = key, r, k, num, den
 		}
 	}
 	e0, e1, nn := edge(bestK)
