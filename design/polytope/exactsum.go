@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"strconv"
 	"strings"
 
 	"quadwright/design/element"
@@ -49,9 +50,14 @@ func readDecimal(s string) (decimal, error) {
 		}
 		e = sg * v
 	}
+	// The significant digits go into a uint64 while they fit (19
+	// digits), else into a string for big.Int.
 	var b strings.Builder
+	var acc uint64
+	digits := 0
 	seenPoint, any := false, false
-	for _, c := range t {
+	for i := 0; i < len(t); i++ {
+		c := t[i]
 		switch {
 		case c == '.' && !seenPoint:
 			seenPoint = true
@@ -60,8 +66,16 @@ func readDecimal(s string) (decimal, error) {
 			if seenPoint {
 				e--
 			}
-			if b.Len() > 0 || c != '0' {
-				b.WriteRune(c)
+			if digits > 0 || c != '0' {
+				digits++
+				if digits <= 19 {
+					acc = 10*acc + uint64(c-'0')
+				} else {
+					if digits == 20 {
+						b.WriteString(strconv.FormatUint(acc, 10))
+					}
+					b.WriteByte(c)
+				}
 			}
 		default:
 			return decimal{}, fmt.Errorf("%q: not a decimal number", s)
@@ -70,9 +84,11 @@ func readDecimal(s string) (decimal, error) {
 	if !any {
 		return decimal{}, fmt.Errorf("%q: not a decimal number", s)
 	}
-	d := decimal{m: new(big.Int), e: e, digits: b.Len()}
-	if b.Len() > 0 {
+	d := decimal{m: new(big.Int), e: e, digits: digits}
+	if digits > 19 {
 		d.m.SetString(b.String(), 10)
+	} else {
+		d.m.SetUint64(acc)
 	}
 	if neg {
 		d.m.Neg(d.m)

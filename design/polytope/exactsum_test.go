@@ -69,11 +69,16 @@ func TestReadDecimal(t *testing.T) {
 	}{
 		{"1.25", 125, -2, 3}, {"-0.00120", -120, -5, 3}, {"3e5", 3, 5, 1},
 		{"2.5E-3", 25, -4, 2}, {"0", 0, 0, 0}, {"+7.", 7, 0, 1}, {".5", 5, -1, 1},
+		{"-1.234567890123456789", -1234567890123456789, -18, 19},
 	} {
 		d, err := readDecimal(c.s)
 		if err != nil || d.m.Int64() != c.m || d.e != c.e || d.digits != c.dig {
 			t.Errorf("%q: %v %d %d %v, want %d %d %d", c.s, d.m, d.e, d.digits, err, c.m, c.e, c.dig)
 		}
+	}
+	long, err := readDecimal("0.00123456789012345678901234567890e3")
+	if want, _ := new(big.Int).SetString("123456789012345678901234567890", 10); err != nil || long.m.Cmp(want) != 0 || long.e != -29 || long.digits != 30 {
+		t.Errorf("30 digits: %v %d %d %v", long.m, long.e, long.digits, err)
 	}
 	for _, s := range []string{"", "-", "1.2.3", "1e", "x", "1e1234567", "1/3", "."} {
 		if _, err := readDecimal(s); err == nil {

@@ -26,6 +26,8 @@ const maxVertices = 10000
 type Polygon struct {
 	V   [][2]*big.Rat
 	Src [][]string
+	// ccwV caches ccw().
+	ccwV [][2]*big.Rat
 }
 
 // Polyhedron is a polyhedron given by its vertices and its faces (lists of
@@ -99,6 +101,14 @@ func ParsePolygon(r io.Reader, name string) (*Polygon, error) {
 		}
 		var v [2]*big.Rat
 		for k := range v {
+			if len(f[k]) <= maxField && !strings.ContainsAny(f[k], "eE") {
+				// a plain decimal, read without building the error's
+				// location first
+				if d, err := readDecimal(f[k]); err == nil {
+					v[k] = d.rat()
+					continue
+				}
+			}
 			x, err := readNumber(f[k], fmt.Sprintf("%s line %d", name, no))
 			if err != nil {
 				return err

@@ -187,14 +187,21 @@ func (o *outline) crossingEdges() error {
 }
 
 // ccw returns the vertices in counterclockwise order.
+// The result is computed once and kept (a cell's canonical form,
+// subdivision and moments all ask for it); p.V must not change after.
 func (p *Polygon) ccw() [][2]*big.Rat {
+	if p.ccwV != nil {
+		return p.ccwV
+	}
 	if areaSign(p.V) > 0 {
+		p.ccwV = p.V
 		return p.V
 	}
 	out := make([][2]*big.Rat, len(p.V))
 	for i, v := range p.V {
 		out[len(p.V)-1-i] = v
 	}
+	p.ccwV = out
 	return out
 }
 
