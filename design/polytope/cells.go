@@ -100,7 +100,7 @@ func (c polygonCell) insideOpen() func(x []float64) bool {
 					in = !in
 				}
 			}
-			if segDist(a, b, x) < 1e-12 {
+			if segDist2(a, b, x) < 1e-24 {
 				return false
 			}
 		}
@@ -108,11 +108,14 @@ func (c polygonCell) insideOpen() func(x []float64) bool {
 	}
 }
 
-func segDist(a, b [2]float64, x []float64) float64 {
+// segDist2 is the squared distance from x to the segment ab (squared,
+// so that the test of every node against every edge takes no root).
+func segDist2(a, b [2]float64, x []float64) float64 {
 	dx, dy := b[0]-a[0], b[1]-a[1]
 	t := ((x[0]-a[0])*dx + (x[1]-a[1])*dy) / (dx*dx + dy*dy)
 	t = math.Max(0, math.Min(1, t))
-	return math.Hypot(x[0]-a[0]-t*dx, x[1]-a[1]-t*dy)
+	ex, ey := x[0]-a[0]-t*dx, x[1]-a[1]-t*dy
+	return ex*ex + ey*ey
 }
 
 func (c polygonCell) describe() (string, [][]string, [][]int) {
