@@ -115,7 +115,7 @@ func Batch(ctx context.Context, blocks []Block, name string, opt BatchOptions) [
 	}
 	var mu sync.Mutex
 	classes := map[string]*classEntry{}
-	cache := func(key string, canon cell) (*classSolution, error) {
+	cache := func(key string, canon func() cell) (*classSolution, error) {
 		mu.Lock()
 		e, ok := classes[key]
 		if !ok {
@@ -123,7 +123,7 @@ func Batch(ctx context.Context, blocks []Block, name string, opt BatchOptions) [
 			classes[key] = e
 		}
 		mu.Unlock()
-		e.once.Do(func() { e.cs, e.err = solveClass(ctx, canon, opt.Options) })
+		e.once.Do(func() { e.cs, e.err = solveClass(ctx, canon(), opt.Options) })
 		return e.cs, e.err
 	}
 	out := make([]Result, len(blocks))
@@ -146,7 +146,7 @@ func Batch(ctx context.Context, blocks []Block, name string, opt BatchOptions) [
 	return out
 }
 
-func buildBlock(ctx context.Context, b Block, name string, opt BatchOptions, cache func(string, cell) (*classSolution, error)) Result {
+func buildBlock(ctx context.Context, b Block, name string, opt BatchOptions, cache func(string, func() cell) (*classSolution, error)) Result {
 	where := fmt.Sprintf("%s cell %d (line %d)", name, b.Index, b.Line)
 	var c cell
 	if opt.Dim == 2 {

@@ -7,7 +7,6 @@ import (
 	"math/big"
 
 	"quadwright/design/element"
-	"quadwright/precision"
 )
 
 // MaxDegree is the largest degree built: 30 for polygons, 12 for
@@ -61,8 +60,10 @@ const Method = "collapsed rules on a simplex subdivision, Tchakaloff compression
 // cell is what Build needs of a polygon or polyhedron.
 type cell interface {
 	dimension() int
-	canonical() (canon cell, key string, sim similarity)
+	canonical() (canon func() cell, key string, sim similarity)
 	moments(deg int) []*big.Rat
+	// momentFracs is moments as unreduced fractions num[j] / den[j].
+	momentFracs(deg int) (num, den []*big.Int)
 	simplices() [][][]*big.Rat
 	// framed returns the cell moved by w_k -> (w_k - c_k)/h_k into [-1,1]^dim.
 	framed() (cell, []*big.Rat, []*big.Rat)
@@ -125,7 +126,7 @@ func solveClass(ctx context.Context, canon cell, opt Options) (*classSolution, e
 // build makes the rule of one cell from its class's solution, solved
 // here unless cache supplies it; the mapped rule is printed, confirmed and
 // verified for this cell.
-func build(ctx context.Context, c cell, opt Options, cache func(key string, canon cell) (*classSolution, error)) (*Rule, error) {
+func build(ctx context.Context, c cell, opt Options, cache func(key string, canon func() cell) (*classSolution, error)) (*Rule, error) {
 	dim := c.dimension()
 	if err := checkOptions(dim, opt); err != nil {
 		return nil, err
@@ -136,7 +137,7 @@ func build(ctx context.Context, c cell, opt Options, cache func(key string, cano
 	if cache != nil {
 		cs, err = cache(key, canon)
 	} else {
-		cs, err = solveClass(ctx, canon, opt)
+		cs, err = solveClass(ctx, canon(), opt)
 	}
 	if err != nil {
 		return nil, fmt.Errorf("degree %d: %v", opt.Degree, err)
@@ -174,29 +175,37 @@ func build(ctx context.Context, c cell, opt Options, cache func(key string, cano
 
 // verify checks the printed rule: positive weights, nodes in the closed
 // cell (exactly, on its simplices), exactness through the degree asked
-// against the cell's exact moments.
+// against the cell's exact moments. Each printed value is read once, as
+// the exact decimal it is (readDecimal).
 func verify(ctx context.Context, c cell, r *Rule) error {
 	kind := r.Kind
-	simp := c.simplices()
-	for i, w := range r.Weights {
-		v, err := precision.ParseExact(w)
-		if err != nil || v.Sign() <= 0 {
-			return fmt.Errorf("the %s rule of degree %d has a weight that is not positive (weight %d = %s)", kind, r.Requested, i+1, w)
-		}
-		p := make([]*big.Rat, len(r.Nodes[i]))
-		for k, s := range r.Nodes[i] {
-			if p[k], err = precision.ParseExact(s); err != nil {
-				return fmt.Errorf("node %d coordinate %q: not a decimal number", i+1, s)
-			}
-		}
-		if !inSimplices(simp, p) {
-			return fmt.Errorf("the %s rule of degree %d has node %d %v outside the %s", kind, r.Requested, i+1, r.Nodes[i], kind)
-		}
-	}
-	ex, err := verifyExact(ctx, c, r.Nodes, r.Weights, r.Requested, r.Digits)
+	dim := c.dimension()
+	rd, err := readRule(r.Nodes, r.Weights, dim)
 	if err != nil {
 		return err
 	}
+	st := newSimplexTest(c.simplices())
+	pf := make([]float64, dim)
+	for i, w := range rd.w {
+		if w.m.Sign() <= 0 {
+			return fmt.Errorf("the %s rule of degree %d has a weight that is not positive (weight %d = %s)", kind, r.Requested, i+1, r.Weights[i])
+		}
+		for k := range pf {
+			pf[k] = rd.float(k, i)
+		}
+		if !st.contains(pf, func() []*big.Rat { return rd.point(i) }) {
+			return fmt.Errorf("the %s rule of degree %d has node %d %v outside the %s", kind, r.Requested, i+1, r.Nodes[i], kind)
+		}
+	}
+	if err := ctx.Err(); err != nil {
+		return err
+	}
+	base := r.Digits
+	if base == 0 {
+		base = 17
+	}
+	num, den := c.momentFracs(r.Requested)
+	ex := rd.exactSums(num, den, r.Requested, base)
 	if ex.Degree < r.Requested {
 		return fmt.Errorf("the printed %s rule for degree %d could not be verified: it integrates the exact moments only through degree %d", kind, r.Requested, ex.Degree)
 	}
@@ -204,7 +213,8 @@ func verify(ctx context.Context, c cell, r *Rule) error {
 	return nil
 }
 
-// verifyExact tests the printed rule on every monomial of total degree <=
+// verifyExact tests a rule read from a file (any number
+// precision.ParseNumber reads) on every monomial of total degree <=
 // maxDeg against the exact moments of the cell, with the tolerance of
 // element.VerifyAgainst for digits significant digits (0: float64, 17).
 func verifyExact(ctx context.Context, c cell, nodes [][]string, weights []string, maxDeg, digits int) (element.Exactness, error) {
@@ -223,6 +233,45 @@ func verifyExact(ctx context.Context, c cell, nodes [][]string, weights []string
 	return element.VerifyAgainst(ctx, frame, nodes, weights, element.CheckOptions{MaxDegree: maxDeg, MinDigits: base, Integral: integral})
 }
 
+// simplexTest is inSimplices with the simplices converted to float64
+// once, for testing many points.
+type simplexTest struct {
+	exact [][][]*big.Rat
+	f     [][][]float64
+}
+
+func newSimplexTest(simp [][][]*big.Rat) *simplexTest {
+	st := &simplexTest{exact: simp, f: make([][][]float64, len(simp))}
+	for j, s := range simp {
+		st.f[j] = make([][]float64, len(s))
+		for i := range s {
+			st.f[j][i] = make([]float64, len(s[i]))
+			for k := range s[i] {
+				st.f[j][i][k], _ = s[i][k].Float64()
+			}
+		}
+	}
+	return st
+}
+
+// contains reports whether the point lies in the closed union of the
+// simplices: pf is its nearest float64 value, exact returns it exactly
+// (called only when the float64 filter cannot decide).
+func (st *simplexTest) contains(pf []float64, exact func() []*big.Rat) bool {
+	for _, s := range st.f {
+		if clearlyInside(s, pf) {
+			return true
+		}
+	}
+	p := exact()
+	for _, s := range st.exact {
+		if inSimplex(s, p) {
+			return true
+		}
+	}
+	return false
+}
+
 // inSimplices reports whether p lies in the closed union of the simplices.
 // A point clearly inside one simplex in float64 (every barycentric
 // coordinate above 1e-9, the simplex not flatter than 1e-6) is accepted
@@ -234,29 +283,12 @@ func inSimplices(simp [][][]*big.Rat, p []*big.Rat) bool {
 	for k := range p {
 		pf[k], _ = p[k].Float64()
 	}
-	for _, s := range simp {
-		if clearlyInside(s, pf) {
-			return true
-		}
-	}
-	for _, s := range simp {
-		if inSimplex(s, p) {
-			return true
-		}
-	}
-	return false
+	return newSimplexTest(simp).contains(pf, func() []*big.Rat { return p })
 }
 
 // clearlyInside is the float64 filter of inSimplices.
-func clearlyInside(s [][]*big.Rat, p []float64) bool {
+func clearlyInside(v [][]float64, p []float64) bool {
 	dim := len(p)
-	v := make([][]float64, len(s))
-	for i := range s {
-		v[i] = make([]float64, dim)
-		for k := range s[i] {
-			v[i][k], _ = s[i][k].Float64()
-		}
-	}
 	det := func(rows [][]float64) float64 {
 		if dim == 2 {
 			return rows[0][0]*rows[1][1] - rows[0][1]*rows[1][0]

@@ -9,12 +9,16 @@ type polygonCell struct{ p *Polygon }
 
 func (c polygonCell) dimension() int { return 2 }
 
-func (c polygonCell) canonical() (cell, string, similarity) {
+func (c polygonCell) canonical() (func() cell, string, similarity) {
 	q, key, sim := canonicalPolygon(c.p)
-	return polygonCell{q}, key, sim
+	return func() cell { return polygonCell{q()} }, key, sim
 }
 
 func (c polygonCell) moments(deg int) []*big.Rat { return PolygonMoments(c.p, deg) }
+
+func (c polygonCell) momentFracs(deg int) ([]*big.Int, []*big.Int) {
+	return polygonMomentFracs(c.p, deg)
+}
 
 func (c polygonCell) simplices() [][][]*big.Rat {
 	var out [][][]*big.Rat
@@ -96,7 +100,7 @@ func (c polygonCell) insideOpen() func(x []float64) bool {
 					in = !in
 				}
 			}
-			if segDist(a, b, x) < 1e-12 {
+			if segDist2(a, b, x) < 1e-24 {
 				return false
 			}
 		}
@@ -104,11 +108,14 @@ func (c polygonCell) insideOpen() func(x []float64) bool {
 	}
 }
 
-func segDist(a, b [2]float64, x []float64) float64 {
+// segDist2 is the squared distance from x to the segment ab (squared,
+// so that the test of every node against every edge takes no root).
+func segDist2(a, b [2]float64, x []float64) float64 {
 	dx, dy := b[0]-a[0], b[1]-a[1]
 	t := ((x[0]-a[0])*dx + (x[1]-a[1])*dy) / (dx*dx + dy*dy)
 	t = math.Max(0, math.Min(1, t))
-	return math.Hypot(x[0]-a[0]-t*dx, x[1]-a[1]-t*dy)
+	ex, ey := x[0]-a[0]-t*dx, x[1]-a[1]-t*dy
+	return ex*ex + ey*ey
 }
 
 func (c polygonCell) describe() (string, [][]string, [][]int) {
@@ -119,12 +126,16 @@ type polyhedronCell struct{ p *Polyhedron }
 
 func (c polyhedronCell) dimension() int { return 3 }
 
-func (c polyhedronCell) canonical() (cell, string, similarity) {
+func (c polyhedronCell) canonical() (func() cell, string, similarity) {
 	q, key, sim := canonicalPolyhedron(c.p)
-	return polyhedronCell{q}, key, sim
+	return func() cell { return polyhedronCell{q} }, key, sim
 }
 
 func (c polyhedronCell) moments(deg int) []*big.Rat { return PolyhedronMoments(c.p, deg) }
+
+func (c polyhedronCell) momentFracs(deg int) ([]*big.Int, []*big.Int) {
+	return polyhedronMomentFracs(c.p, deg)
+}
 
 func (c polyhedronCell) simplices() [][][]*big.Rat {
 	tets, err := c.p.tetrahedra()

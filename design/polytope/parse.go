@@ -26,6 +26,8 @@ const maxVertices = 10000
 type Polygon struct {
 	V   [][2]*big.Rat
 	Src [][]string
+	// ccwV caches ccw().
+	ccwV [][2]*big.Rat
 }
 
 // Polyhedron is a polyhedron given by its vertices and its faces (lists of
@@ -48,6 +50,9 @@ func readNumber(s, where string) (*big.Rat, error) {
 			}
 		}
 	}
+	if d, err := readDecimal(s); err == nil {
+		return d.rat(), nil // the common case, without the general reader
+	}
 	v, err := precision.ParseExact(s)
 	if err != nil {
 		return nil, fmt.Errorf("%s: %q is not a decimal number or a fraction p/q", where, s)
@@ -59,7 +64,7 @@ func readNumber(s, where string) (*big.Rat, error) {
 // surrounding space removed, with their 1-based numbers.
 func lines(r io.Reader, each func(no int, text string) error) error {
 	sc := bufio.NewScanner(r)
-	sc.Buffer(make([]byte, 64*1024), 1<<20)
+	sc.Buffer(nil, 1<<20) // grows from 4 KiB: one cell of a batch is a few lines
 	no := 0
 	for sc.Scan() {
 		no++
@@ -96,6 +101,14 @@ func ParsePolygon(r io.Reader, name string) (*Polygon, error) {
 		}
 		var v [2]*big.Rat
 		for k := range v {
+			if len(f[k]) <= maxField && !strings.ContainsAny(f[k], "eE") {
+				// a plain decimal, read without building the error's
+				// location first
+				if d, err := readDecimal(f[k]); err == nil {
+					v[k] = d.rat()
+					continue
+				}
+			}
 			x, err := readNumber(f[k], fmt.Sprintf("%s line %d", name, no))
 			if err != nil {
 				return err

@@ -2,6 +2,7 @@ package polytope
 
 import (
 	"fmt"
+	"math"
 	"math/big"
 )
 
@@ -32,15 +33,81 @@ func onSegment(a, b, p [2]*big.Rat) bool {
 	return true
 }
 
-// segmentsMeet reports whether the closed segments ab and cd share a point.
-func segmentsMeet(a, b, c, d [2]*big.Rat) bool {
-	d1, d2 := cross2(a, b, c).Sign(), cross2(a, b, d).Sign()
-	d3, d4 := cross2(c, d, a).Sign(), cross2(c, d, b).Sign()
+// segmentsMeet reports whether the closed segments from vertex i to j and
+// from k to l share a point.
+func (o *outline) segmentsMeet(i, j, k, l int) bool {
+	a, b, c, d := o.v[i], o.v[j], o.v[k], o.v[l]
+	d1, d2 := o.orient(i, j, k), o.orient(i, j, l)
+	d3, d4 := o.orient(k, l, i), o.orient(k, l, j)
 	if d1*d2 < 0 && d3*d4 < 0 {
 		return true
 	}
 	return d1 == 0 && onSegment(a, b, c) || d2 == 0 && onSegment(a, b, d) ||
 		d3 == 0 && onSegment(c, d, a) || d4 == 0 && onSegment(c, d, b)
+}
+
+// outline is a closed polygonal line held exactly and as the nearest
+// float64 values, for the orientation predicates.
+type outline struct {
+	v [][2]*big.Rat
+	f [][2]float64
+	// X is the largest magnitude of any float64 coordinate.
+	X float64
+}
+
+func newOutline(v [][2]*big.Rat) *outline {
+	o := &outline{v: v, f: make([][2]float64, len(v))}
+	for i := range v {
+		o.f[i][0], _ = v[i][0].Float64()
+		o.f[i][1], _ = v[i][1].Float64()
+		o.X = math.Max(o.X, math.Max(math.Abs(o.f[i][0]), math.Abs(o.f[i][1])))
+	}
+	return o
+}
+
+// orient is the sign of cross2 of the vertices i, j, k, decided in
+// float64 when a proven bound on the float64 value's error says the sign
+// is right, else exactly. Each coordinate converts with relative error at
+// most u = 2^-53; with X at least the magnitude of every coordinate, each
+// difference is then off by at most 4 u X (two conversions, one rounding,
+// to first order), each product by at most 20 u X^2, the result by at
+// most 48 u X^2: a float64 value larger than 64 u X^2 in magnitude has
+// the sign of the exact one. (Common practice: J. R. Shewchuk, "Adaptive
+// precision floating-point arithmetic and fast robust geometric
+// predicates", Discrete Comput. Geom. 18, 1997, filters the same way.)
+func (o *outline) orient(i, j, k int) int {
+	a, b, c := o.f[i], o.f[j], o.f[k]
+	d := (b[0]-a[0])*(c[1]-a[1]) - (b[1]-a[1])*(c[0]-a[0])
+	if bound := 64 * 0x1p-53 * o.X * o.X; !math.IsInf(bound, 0) && bound > 0x1p-1000 && math.Abs(d) > bound {
+		if d > 0 {
+			return 1
+		}
+		return -1
+	}
+	return cross2(o.v[i], o.v[j], o.v[k]).Sign()
+}
+
+// areaSign is the sign of signedArea2(v), decided in float64 when a
+// proven bound allows it (as orient: each of the n terms x_i y_(i+1) -
+// x_(i+1) y_i is off by at most 8 u X^2, and summing n terms of magnitude
+// at most 2 X^2 adds at most 2 n^2 u X^2), else exactly.
+func areaSign(v [][2]*big.Rat) int { return newOutline(v).areaSign() }
+
+func (o *outline) areaSign() int {
+	n := len(o.f)
+	s := 0.0
+	for i := range o.f {
+		j := (i + 1) % n
+		s += o.f[i][0]*o.f[j][1] - o.f[j][0]*o.f[i][1]
+	}
+	nf := float64(n)
+	if bound := 2 * (8*nf + 2*nf*nf) * 0x1p-53 * o.X * o.X; !math.IsInf(bound, 0) && bound > 0x1p-1000 && math.Abs(s) > bound {
+		if s > 0 {
+			return 1
+		}
+		return -1
+	}
+	return signedArea2(o.v).Sign()
 }
 
 // signedArea2 is twice the signed area (positive counterclockwise).
@@ -71,16 +138,16 @@ func (p *Polygon) Validate() error {
 		}
 		seen[k] = i
 	}
+	o := newOutline(p.V)
 	for i := range p.V {
-		a, b, c := p.V[(i+n-1)%n], p.V[i], p.V[(i+1)%n]
-		if cross2(a, b, c).Sign() == 0 {
+		if o.orient((i+n-1)%n, i, (i+1)%n) == 0 {
 			return fmt.Errorf("vertex %d lies on the line through its neighbours %d and %d (a degenerate corner)", i+1, (i+n-1)%n+1, (i+1)%n+1)
 		}
 	}
-	if err := crossingEdges(p.V); err != nil {
+	if err := o.crossingEdges(); err != nil {
 		return err
 	}
-	if signedArea2(p.V).Sign() == 0 {
+	if o.areaSign() == 0 {
 		return fmt.Errorf("the polygon has zero area")
 	}
 	return nil
@@ -89,14 +156,20 @@ func (p *Polygon) Validate() error {
 // crossingEdges reports the first two non-adjacent edges of the closed
 // outline v that share a point, and adjacent edges that fold back onto
 // each other.
-func crossingEdges(v [][2]*big.Rat) error {
+func crossingEdges(v [][2]*big.Rat) error { return newOutline(v).crossingEdges() }
+
+func (o *outline) crossingEdges() error {
+	v := o.v
 	n := len(v)
 	for i := 0; i < n; i++ {
 		a, b, c := v[(i+n-1)%n], v[i], v[(i+1)%n]
+		if o.orient((i+n-1)%n, i, (i+1)%n) != 0 {
+			continue
+		}
 		u, w := sub2(a, b), sub2(c, b)
 		dot := new(big.Rat).Mul(u[0], w[0])
 		dot.Add(dot, new(big.Rat).Mul(u[1], w[1]))
-		if cross2(a, b, c).Sign() == 0 && dot.Sign() > 0 {
+		if dot.Sign() > 0 {
 			return fmt.Errorf("edges %d and %d fold back onto each other at vertex %d", (i+n-1)%n+1, i+1, i+1)
 		}
 	}
@@ -105,7 +178,7 @@ func crossingEdges(v [][2]*big.Rat) error {
 			if i == 0 && j == n-1 {
 				continue // adjacent through vertex 1
 			}
-			if segmentsMeet(v[i], v[(i+1)%n], v[j], v[(j+1)%n]) {
+			if o.segmentsMeet(i, (i+1)%n, j, (j+1)%n) {
 				return fmt.Errorf("edges %d (vertices %d-%d) and %d (vertices %d-%d) intersect: the polygon is not simple", i+1, i+1, (i+1)%n+1, j+1, j+1, (j+1)%n+1)
 			}
 		}
@@ -114,20 +187,28 @@ func crossingEdges(v [][2]*big.Rat) error {
 }
 
 // ccw returns the vertices in counterclockwise order.
+// The result is computed once and kept (a cell's canonical form,
+// subdivision and moments all ask for it); p.V must not change after.
 func (p *Polygon) ccw() [][2]*big.Rat {
-	if signedArea2(p.V).Sign() > 0 {
+	if p.ccwV != nil {
+		return p.ccwV
+	}
+	if areaSign(p.V) > 0 {
+		p.ccwV = p.V
 		return p.V
 	}
 	out := make([][2]*big.Rat, len(p.V))
 	for i, v := range p.V {
 		out[len(p.V)-1-i] = v
 	}
+	p.ccwV = out
 	return out
 }
 
 // earClip triangulates the counterclockwise simple polygon v (exactly)
 // by removing ears: n-2 triangles, each counterclockwise.
 func earClip(v [][2]*big.Rat) [][3][2]*big.Rat {
+	o := newOutline(v)
 	idx := make([]int, len(v))
 	for i := range idx {
 		idx[i] = i
@@ -137,17 +218,17 @@ func earClip(v [][2]*big.Rat) [][3][2]*big.Rat {
 		m := len(idx)
 		cut := false
 		for k := 0; k < m; k++ {
-			a, b, c := v[idx[(k+m-1)%m]], v[idx[k]], v[idx[(k+1)%m]]
-			if cross2(a, b, c).Sign() <= 0 {
+			ia, ib, ic := idx[(k+m-1)%m], idx[k], idx[(k+1)%m]
+			a, b, c := v[ia], v[ib], v[ic]
+			if o.orient(ia, ib, ic) <= 0 {
 				continue // reflex or straight
 			}
 			ear := true
 			for _, j := range idx {
-				q := v[j]
-				if j == idx[(k+m-1)%m] || j == idx[k] || j == idx[(k+1)%m] {
+				if j == ia || j == ib || j == ic {
 					continue
 				}
-				if cross2(a, b, q).Sign() >= 0 && cross2(b, c, q).Sign() >= 0 && cross2(c, a, q).Sign() >= 0 {
+				if o.orient(ia, ib, j) >= 0 && o.orient(ib, ic, j) >= 0 && o.orient(ic, ia, j) >= 0 {
 					ear = false
 					break
 				}
@@ -164,7 +245,7 @@ func earClip(v [][2]*big.Rat) [][3][2]*big.Rat {
 			// Only straight corners remain (collinear leftovers of earlier
 			// cuts): drop one, its triangle has zero area.
 			for k := 0; k < m; k++ {
-				if cross2(v[idx[(k+m-1)%m]], v[idx[k]], v[idx[(k+1)%m]]).Sign() == 0 {
+				if o.orient(idx[(k+m-1)%m], idx[k], idx[(k+1)%m]) == 0 {
 					idx = append(idx[:k], idx[k+1:]...)
 					cut = true
 					break
@@ -175,7 +256,7 @@ func earClip(v [][2]*big.Rat) [][3][2]*big.Rat {
 			}
 		}
 	}
-	if cross2(v[idx[0]], v[idx[1]], v[idx[2]]).Sign() != 0 {
+	if o.orient(idx[0], idx[1], idx[2]) != 0 {
 		tris = append(tris, [3][2]*big.Rat{v[idx[0]], v[idx[1]], v[idx[2]]})
 	}
 	return tris

@@ -216,7 +216,7 @@ func project(vs []vec3, n vec3) [][2]*big.Rat {
 // corners (a vertex on the line of its neighbours, common where faces
 // meet along a subdivided edge).
 func earClipLoose(v [][2]*big.Rat) [][3][2]*big.Rat {
-	if signedArea2(v).Sign() < 0 {
+	if areaSign(v) < 0 {
 		w := make([][2]*big.Rat, len(v))
 		for i := range v {
 			w[len(v)-1-i] = v[i]
