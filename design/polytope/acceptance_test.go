@@ -209,9 +209,7 @@ func checkRule(t *testing.T, name string, dim, deg int, r *Rule, mono []*big.Rat
 // overBound lists the cases where elimination does not yet reach the
 // point-count bound: our own counts, measured, kept so a regression past them
 // still fails. Each entry is a shortfall of the construction, not of the bound.
-var overBound = map[string]int{
-	"star of 40 vertices/8": 22, // bound 18
-}
+var overBound = map[string]int{}
 
 func polygonDegrees() []int {
 	if testing.Short() {
