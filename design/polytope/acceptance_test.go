@@ -209,7 +209,9 @@ func checkRule(t *testing.T, name string, dim, deg int, r *Rule, mono []*big.Rat
 // overBound lists the cases where elimination does not yet reach the
 // point-count bound: our own counts, measured, kept so a regression past them
 // still fails. Each entry is a shortfall of the construction, not of the bound.
-var overBound = map[string]int{}
+var overBound = map[string]int{
+	"notched prism/6": 26, // bound 25 (measured 2026-12-05)
+}
 
 func polygonDegrees() []int {
 	if testing.Short() {
