@@ -55,6 +55,9 @@ func (ms *momentSystem) subsample(Q *mat.Dense, cand *discreteWeight, prec uint)
 func (ms *momentSystem) thin(ctx context.Context, start *wrule, bn float64, prec uint) *wrule {
 	tol := math.Log2(bn) - 13*math.Log2(10)
 	if fewer, _, err := ms.solve(ctx, start.at(128), 128, tol, 25); err == nil {
+		if t := ms.thin64(ctx, fewer, tol); t != nil {
+			return t.at(prec)
+		}
 		return ms.eliminate(ctx, fewer, 128, tol).at(prec)
 	}
 	return start

@@ -210,7 +210,7 @@ func checkRule(t *testing.T, name string, dim, deg int, r *Rule, mono []*big.Rat
 // point-count bound: our own counts, measured, kept so a regression past them
 // still fails. Each entry is a shortfall of the construction, not of the bound.
 var overBound = map[string]int{
-	"star of 40 vertices/8": 22, // bound 18
+	"notched prism/6": 26, // bound 25 (measured 2026-12-05)
 }
 
 func polygonDegrees() []int {
