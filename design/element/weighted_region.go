@@ -282,7 +282,7 @@ func SolveRegion(ctx context.Context, reg Region, digits int) (*Solution, error)
 			lastErr = fmt.Errorf("no positive subsample of the candidate rule was found")
 			continue
 		}
-		st := thinned{ms.thin64(ctx, start, bn, prec1), bn, cond, Ck}
+		st := thinned{ms.thin(ctx, start, bn, prec1), bn, cond, Ck}
 		if len(st.r.x) <= target {
 			sol, err := solveTwice(ctx, frame, bb, st.C, at, reg.Inside, st.r, st.bn, st.cond, digits)
 			if err == nil {

@@ -48,11 +48,19 @@ func (ms *momentSystem) subsample(Q *mat.Dense, cand *discreteWeight, prec uint)
 	return start, bn
 }
 
-// thin solves the subsample to float64-level residuals at 128 bits and
-// runs point elimination there (eliminate); the survivors come back at
-// prec bits, ready for the solve at the working precision. When the first
-// solve fails, start itself comes back.
+// thin solves the subsample to float64-level residuals and runs point
+// elimination on it (eliminate64), both in float64 on the orthonormal
+// basis: the moment equations are solved there only to 10^-13 relative,
+// which float64 reaches, and the thinned rule is only the start of the
+// solve at the working precision, which decides every printed digit.
+// When the float64 solve fails the same steps run at 128 bits (solve,
+// then thin64 or eliminate); when that fails too, start itself comes
+// back. The survivors come back at prec bits.
 func (ms *momentSystem) thin(ctx context.Context, start *wrule, bn float64, prec uint) *wrule {
+	s := newSys64(ms)
+	if r := s.solve(ctx, toRule64(start), 1e-13, 25, len(start.x)); r != nil {
+		return s.eliminate(ctx, r).at(prec)
+	}
 	tol := math.Log2(bn) - 13*math.Log2(10)
 	if fewer, _, err := ms.solve(ctx, start.at(128), 128, tol, 25); err == nil {
 		if t := ms.thin64(ctx, fewer, tol); t != nil {
